@@ -1,0 +1,25 @@
+// The one number formatter behind every writer and printout: fixed decimals, no "-0", no exponent.
+export function fixed(value: number, decimals: number): string {
+  if (!Number.isFinite(value)) throw new RangeError(`cannot format non-finite number ${value}`);
+  const text = value.toFixed(decimals);
+  // toFixed switches to exponent form at 1e21; such values never occur in board coordinates.
+  if (/e/i.test(text)) throw new RangeError(`number ${value} is out of range for fixed formatting`);
+  return /^-0(\.0*)?$/.test(text) ? text.slice(1) : text;
+}
+
+/** Fixed decimals with trailing zeros (and a bare trailing point) removed: 1.500 → "1.5", 2.000 → "2". */
+export function trimmed(value: number, decimals: number): string {
+  const text = fixed(value, decimals);
+  return text.includes('.') ? text.replace(/0+$/, '').replace(/\.$/, '') : text;
+}
+
+/** Millimetres from metres, trimmed. */
+export const mm = (metres: number, decimals = 3): string => trimmed(metres * 1e3, decimals);
+
+/** The trade's complex notation: 22-j31, 50, 12.5+j4. */
+export function impedanceText(re: number, im: number, decimals = 2): string {
+  const r = trimmed(re, decimals);
+  const i = trimmed(Math.abs(im), decimals);
+  if (i === '0') return r;
+  return `${r}${im < 0 ? '-' : '+'}j${i}`;
+}
