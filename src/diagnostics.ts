@@ -25,6 +25,8 @@ export const CATALOGUE = {
   'fit.no-fit': { severity: 'error', hint: 'the copper does not fit the allowed area' },
   'fit.changed': { severity: 'info', hint: 'the layout was changed to fit the area' },
   'design.note': { severity: 'info', hint: '' },
+  'design.via-near-junction': { severity: 'warning', hint: 'a via close to the junction is the least certain part of a short-stub match' },
+  'design.refine-failed': { severity: 'warning', hint: 'the physical network refinement did not converge' },
 } as const satisfies Record<string, { severity: Severity; hint: string }>;
 
 export type DiagnosticCode = keyof typeof CATALOGUE;

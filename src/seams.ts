@@ -139,6 +139,22 @@ export interface ViaSpec {
   readonly inductance: number;
 }
 
+/** Copper dimensions of a match as drawn (m): what the geometry stage and the network model share. */
+export interface MatchCopper {
+  readonly seriesWidth: number;
+  readonly stubWidth: number;
+  /** Load reference plane → stub centre-line. */
+  readonly seriesLength: number;
+  /** Series line edge → open end, or → via centre for a short stub. */
+  readonly stubLength: number;
+  /** Stub centre-line → source reference plane. */
+  readonly leadLength: number;
+  readonly termination: Termination;
+  /** 0 when the load is already matched (a plain line), 1 single stub, 2 balanced stubs. */
+  readonly stubCount: 0 | 1 | 2;
+  readonly vias?: { readonly drill: number; readonly pad: number; readonly count: number };
+}
+
 export interface PhysicalDesign {
   readonly frequency: number;
   readonly substrate: Substrate;
@@ -146,7 +162,11 @@ export interface PhysicalDesign {
   /** Target impedance moved back through the source lead to the junction. */
   readonly targetAtJunction: Complex;
   readonly sections: readonly Section[];
+  readonly copper: MatchCopper;
+  readonly stubSides: readonly ('left' | 'right')[];
   readonly via?: ViaSpec;
+  /** |S11| at f0 of the physical network model against the target (dB). */
+  readonly s11DbAtF0: number;
   readonly diagnostics: readonly Diagnostic[];
 }
 

@@ -1,0 +1,293 @@
+// From ideal electrical lengths to copper that matches once etched: size the lines, move the target
+// through the source lead, apply the first-order discontinuity corrections, then refine both
+// lengths on the full physical network (Newton on two unknowns) so the model presents the target at f0.
+import { complex, abs, type Complex } from '../math/complex.js';
+import { diagnostic, fail, type Diagnostic } from '../diagnostics.js';
+import type {
+  Correction,
+  IdealSolution,
+  LineProperties,
+  MatchCopper,
+  PhysicalDesign,
+  Section,
+  Spec,
+  StubSolution,
+  ViaSpec,
+} from '../seams.js';
+import { synthesizeMicrostrip } from './microstrip/index.js';
+import { openEndExtensionKJK, viaInductanceGoldfarbPucel } from './discontinuities/index.js';
+import { inputImpedance } from '../math/lines.js';
+import { newton2 } from '../math/newton.js';
+import { junctionAt, mismatch, physicalInputImpedance, type JunctionView } from '../analysis/physicalNetwork.js';
+import { mm } from '../format.js';
+
+/** Sources named in every correction record. */
+export const MODEL_NAMES = {
+  junction: 'T-junction reference planes (Hammerstad 1981)',
+  openEnd: 'open-end extension (Kirschning-Jansen-Koster 1981)',
+  via: 'via inductance (Goldfarb-Pucel 1991)',
+  halfWave: 'half wavelength added to keep the copper buildable',
+  refine: 'solve on the physical network (junction ratio and susceptance, dispersion, loss)',
+} as const;
+
+/**
+ * A short stub whose via sits within this fraction of a wavelength of the junction interacts with
+ * it beyond what the cascade of separate models predicts (physics.md §4.4: a via 0.1 λg from the
+ * junction landed 6 % low in a full-wave check, one 0.3 λg away 0.7 %). When the spec leaves the
+ * choice open, such stubs are made half a wavelength longer.
+ */
+export const VIA_JUNCTION_CLEARANCE_WL = 0.15;
+
+export interface SizedLines {
+  readonly series: LineProperties;
+  readonly stub: LineProperties;
+  readonly diagnostics: readonly Diagnostic[];
+}
+
+/** Widths for the series line and stub impedances at f0, with fabrication checks. */
+export function sizeLines(spec: Spec): SizedLines {
+  const series = synthesizeMicrostrip(spec.lineZ0, spec.substrate, spec.frequency);
+  const stub = spec.stubZ0 === spec.lineZ0 ? series : synthesizeMicrostrip(spec.stubZ0, spec.substrate, spec.frequency);
+  const diagnostics: Diagnostic[] = [...series.warnings.map((d) => ({ ...d, where: 'line_z0' }))];
+  if (stub !== series) diagnostics.push(...stub.warnings.map((d) => ({ ...d, where: 'stub_z0' })));
+  for (const [where, line, z0] of [['line_z0', series, spec.lineZ0], ['stub_z0', stub, spec.stubZ0]] as const) {
+    if (line.width < spec.fab.minTrace) {
+      diagnostics.push(
+        diagnostic('fab.too-narrow', where, `a ${z0} Ω line on this substrate is ${mm(line.width)} mm wide, below fab.min_trace ${mm(spec.fab.minTrace)} mm; use a lower impedance or a thicker substrate`),
+      );
+    }
+  }
+  return { series, stub, diagnostics };
+}
+
+export interface JunctionPlan {
+  readonly junction: JunctionView;
+  /** Drawn source lead: stub centre-line → source plane (m). */
+  readonly leadLength: number;
+  /** The target moved back through the source lead to the junction's arm-b plane. */
+  readonly targetAtJunction: Complex;
+}
+
+export function planJunction(spec: Spec, lines: SizedLines, stubCount: 0 | 1 | 2): JunctionPlan {
+  const leadLength = (stubCount === 0 ? 0 : lines.stub.width / 2) + spec.leads.source;
+  const probe: MatchCopper = copperOf(lines, stubCount === 0 ? 1 : stubCount, 'open', 0, 0, leadLength);
+  const junction = stubCount === 0 ? { da: 0, db: 0, d2: lines.series.width / 2, n2a: 1, n2b: 1, susceptance: 0 } : junctionAt(probe, spec.substrate, spec.frequency);
+  // Move the target back through the lossless lead: a negative length inverts the transformation.
+  const electrical = leadLength - junction.db;
+  const targetAtJunction = inputImpedance(spec.target, lines.series.z0, complex(0, lines.series.beta), -electrical);
+  return { junction, leadLength, targetAtJunction };
+}
+
+function copperOf(
+  lines: SizedLines,
+  stubCount: 0 | 1 | 2,
+  termination: 'open' | 'short',
+  seriesLength: number,
+  stubLength: number,
+  leadLength: number,
+  vias?: MatchCopper['vias'],
+): MatchCopper {
+  return {
+    seriesWidth: lines.series.width,
+    stubWidth: lines.stub.width,
+    seriesLength,
+    stubLength,
+    leadLength,
+    termination,
+    stubCount,
+    ...(vias ? { vias } : {}),
+  };
+}
+
+interface Candidate {
+  readonly solution: StubSolution;
+  readonly copper: MatchCopper;
+  readonly seriesCorrections: readonly Correction[];
+  readonly stubCorrections: readonly Correction[];
+  readonly residual: number;
+  readonly converged: boolean;
+  readonly notes: readonly Diagnostic[];
+}
+
+/** Realise every admissible ideal branch and keep the one with the shortest buildable stub. */
+export function realize(spec: Spec, lines: SizedLines, plan: JunctionPlan, ideal: IdealSolution): PhysicalDesign {
+  const stubCount: 1 | 2 = spec.style === 'balanced' ? 2 : 1;
+  const stubSides = spec.style === 'balanced' ? (['left', 'right'] as const) : ([spec.stubSide] as const);
+  const diagnostics: Diagnostic[] = [...lines.diagnostics];
+  const via = spec.fab.viasPerStub > 0 ? viaOf(spec) : undefined;
+  if (ideal.alreadyMatched) return matchedLine(spec, lines, ideal, diagnostics);
+
+  const wanted = ideal.solutions.filter((s) => spec.stub === 'best' || s.termination === spec.stub);
+  const candidates = wanted.map((s) => realizeBranch(spec, lines, plan, s, stubCount, via));
+  const usable = candidates.filter((c) => c.converged);
+  if (usable.length === 0) {
+    const worst = candidates.reduce((m, c) => Math.max(m, c.residual), 0);
+    fail('solve.no-passive-solution', 'stub', `the physical network could not be brought to the target (best |Γ| ${worst.toExponential(2)}); try another stub termination or impedance`);
+  }
+  const chosen = [...usable].sort((a, b) => a.copper.stubLength - b.copper.stubLength || a.copper.seriesLength - b.copper.seriesLength)[0]!;
+  diagnostics.push(...chosen.notes);
+  if (chosen.copper.termination === 'short' && via) {
+    const ring = (via.pad - via.drill) / 2;
+    if (ring < spec.fab.minAnnularRing) {
+      diagnostics.push(diagnostic('fab.annular-ring', 'fab.via_pad', `annular ring ${mm(ring)} mm is below fab.min_annular_ring ${mm(spec.fab.minAnnularRing)} mm`));
+    }
+  }
+  return assemble(spec, lines, plan, chosen, stubSides, via, diagnostics);
+}
+
+function viaOf(spec: Spec): ViaSpec {
+  return {
+    drill: spec.fab.viaDrill,
+    pad: spec.fab.viaPad,
+    count: spec.fab.viasPerStub,
+    inductance: viaInductanceGoldfarbPucel(spec.substrate.height, spec.fab.viaDrill) / spec.fab.viasPerStub,
+  };
+}
+
+function realizeBranch(
+  spec: Spec,
+  lines: SizedLines,
+  plan: JunctionPlan,
+  solution: StubSolution,
+  stubCount: 1 | 2,
+  via: ViaSpec | undefined,
+): Candidate {
+  const { series, stub } = lines;
+  const j = plan.junction;
+  const notes: Diagnostic[] = [];
+  const seriesCorrections: Correction[] = [{ model: MODEL_NAMES.junction, delta: j.da }];
+  let seriesLength = solution.positionWl * series.wavelength + j.da;
+  // The stub must clear the load plane and any load lead the spec asks for.
+  const seriesMinimum = spec.leads.load + stub.width / 2;
+  while (seriesLength < seriesMinimum) {
+    seriesLength += series.wavelength / 2;
+    seriesCorrections.push({ model: MODEL_NAMES.halfWave, delta: series.wavelength / 2 });
+  }
+
+  const stubCorrections: Correction[] = [{ model: MODEL_NAMES.junction, delta: j.d2 - series.width / 2 }];
+  let stubLength = solution.stubWl * stub.wavelength + j.d2 - series.width / 2;
+  if (solution.termination === 'open') {
+    const extension = openEndExtensionKJK(stub, spec.substrate);
+    stubLength -= extension;
+    stubCorrections.push({ model: MODEL_NAMES.openEnd, delta: -extension });
+  } else if (via) {
+    // An inductive end jX adds electrical length atan(X/Zs) (physics.md §4.4).
+    const x = 2 * Math.PI * spec.frequency * via.inductance;
+    const shortening = Math.atan(x / stub.z0) / stub.beta;
+    stubLength -= shortening;
+    stubCorrections.push({ model: MODEL_NAMES.via, delta: -shortening });
+  }
+  const stubMinimum = minimumStub(spec, solution.termination);
+  const viaClearance = VIA_JUNCTION_CLEARANCE_WL * stub.wavelength;
+  const wantClearance = solution.termination === 'short' && spec.stub === 'best';
+  while (stubLength < stubMinimum || (wantClearance && stubLength < viaClearance)) {
+    stubLength += stub.wavelength / 2;
+    stubCorrections.push({ model: MODEL_NAMES.halfWave, delta: stub.wavelength / 2 });
+  }
+  if (solution.termination === 'short' && stubLength < viaClearance) {
+    notes.push(diagnostic('design.via-near-junction', 'stub', `the via sits ${mm(stubLength)} mm from the line, under ${VIA_JUNCTION_CLEARANCE_WL} λ; it interacts with the junction more than the model predicts: check by full-wave simulation, or use stub: best`));
+  } else if (wantClearance && stubCorrections.some((c) => c.model === MODEL_NAMES.halfWave)) {
+    notes.push(diagnostic('design.note', 'stub', `short stub made half a wavelength longer to keep its via clear of the junction`));
+  }
+
+  const vias = solution.termination === 'short' && via ? { drill: via.drill, pad: via.pad, count: via.count } : undefined;
+  const start = copperOf(lines, stubCount, solution.termination, seriesLength, stubLength, plan.leadLength, vias);
+  const residualOf = (x: readonly [number, number]): readonly [number, number] => {
+    const zin = physicalInputImpedance({ ...start, seriesLength: x[0], stubLength: x[1] }, spec.load, spec.substrate, spec.frequency);
+    const g = mismatch(zin, spec.target);
+    return [g.re, g.im];
+  };
+  const result = newton2(residualOf, [seriesLength, stubLength], {
+    step: [series.wavelength * 1e-7, stub.wavelength * 1e-7],
+    tolerance: 1e-10,
+    maxMove: [series.wavelength / 16, stub.wavelength / 16],
+  });
+  const refined = { ...start, seriesLength: result.x[0], stubLength: result.x[1] };
+  const buildable = refined.stubLength >= stubMinimum && refined.seriesLength >= seriesMinimum;
+  seriesCorrections.push({ model: MODEL_NAMES.refine, delta: refined.seriesLength - seriesLength });
+  stubCorrections.push({ model: MODEL_NAMES.refine, delta: refined.stubLength - stubLength });
+  return {
+    solution,
+    copper: refined,
+    seriesCorrections,
+    stubCorrections,
+    residual: result.residual,
+    converged: result.residual <= 1e-6 && buildable,
+    notes,
+  };
+}
+
+/** Shortest stub the fabrication rules allow: a feature at least one minimum trace long; a via pad clear of the line. */
+function minimumStub(spec: Spec, termination: 'open' | 'short'): number {
+  return termination === 'open' ? spec.fab.minTrace : spec.fab.viaPad / 2 + spec.fab.minSpace;
+}
+
+function section(role: Section['role'], line: LineProperties, electricalWl: number, length: number, corrections: readonly Correction[]): Section {
+  return {
+    role,
+    width: line.width,
+    z0: line.z0,
+    epsEff: line.epsEff,
+    wavelength: line.wavelength,
+    electricalWl,
+    idealLength: electricalWl * line.wavelength,
+    length,
+    corrections,
+  };
+}
+
+function assemble(
+  spec: Spec,
+  lines: SizedLines,
+  plan: JunctionPlan,
+  chosen: Candidate,
+  stubSides: readonly ('left' | 'right')[],
+  via: ViaSpec | undefined,
+  diagnostics: readonly Diagnostic[],
+): PhysicalDesign {
+  const { series, stub } = lines;
+  const c = chosen.copper;
+  const leadElectrical = plan.leadLength - plan.junction.db;
+  const sections: Section[] = [
+    section('series', series, chosen.solution.positionWl, c.seriesLength, chosen.seriesCorrections),
+    section('stub', stub, chosen.solution.stubWl, c.stubLength, chosen.stubCorrections),
+    section('lead-source', series, leadElectrical / series.wavelength, c.leadLength, [{ model: MODEL_NAMES.junction, delta: plan.junction.db }]),
+  ];
+  const zin = physicalInputImpedance(c, spec.load, spec.substrate, spec.frequency);
+  return {
+    frequency: spec.frequency,
+    substrate: spec.substrate,
+    solution: chosen.solution,
+    targetAtJunction: plan.targetAtJunction,
+    sections,
+    copper: c,
+    stubSides,
+    ...(c.termination === 'short' && via ? { via } : {}),
+    s11DbAtF0: db(abs(mismatch(zin, spec.target))),
+    diagnostics,
+  };
+}
+
+function matchedLine(spec: Spec, lines: SizedLines, ideal: IdealSolution, diagnostics: Diagnostic[]): PhysicalDesign {
+  const c = copperOf(lines, 0, 'open', Math.max(spec.leads.load, 0), 0, spec.leads.source);
+  const zin = physicalInputImpedance(c, spec.load, spec.substrate, spec.frequency);
+  diagnostics.push(diagnostic('solve.already-matched', 'load', 'the load already presents the target: no stub is needed, a plain line is drawn'));
+  const trivial: StubSolution = ideal.solutions[0] ?? {
+    positionWl: 0, stubWl: 0, termination: 'open', style: spec.style, branch: 1, stubSusceptance: 0, residualGamma: 0,
+  };
+  return {
+    frequency: spec.frequency,
+    substrate: spec.substrate,
+    solution: trivial,
+    targetAtJunction: spec.target,
+    sections: [section('series', lines.series, c.seriesLength / lines.series.wavelength, c.seriesLength, []), section('lead-source', lines.series, c.leadLength / lines.series.wavelength, c.leadLength, [])],
+    copper: c,
+    stubSides: [],
+    s11DbAtF0: db(abs(mismatch(zin, spec.target))),
+    diagnostics,
+  };
+}
+
+/** 20·log10, floored at −300 dB so an exact match stays finite. */
+export const db = (magnitude: number): number => 20 * Math.log10(Math.max(magnitude, 1e-15));
+

@@ -1,0 +1,94 @@
+// report.md: a design record for a person — what was asked, what was chosen and why, how each
+// length was corrected, what the model predicts, and the cautions that go with RF hardware.
+import type { Diagnostic } from '../diagnostics.js';
+import type { Artifact, BoardGeometry, IdealSolution, PhysicalDesign, ResponseSet, Section, Spec } from '../seams.js';
+import { fixed, impedanceText, mm, trimmed } from '../format.js';
+
+export interface ReportInput {
+  readonly spec: Spec;
+  readonly ideal: IdealSolution;
+  readonly physical: PhysicalDesign;
+  readonly response: ResponseSet;
+  readonly geometry: BoardGeometry;
+  readonly diagnostics: readonly Diagnostic[];
+  readonly version: string;
+}
+
+export const CAUTIONS: readonly string[] = [
+  'This design comes from closed-form models. Verify it by EM simulation or by measurement before it is used in a product or connected to a transmitter.',
+  'RF power can burn skin and heat parts and boards; exposure to RF fields has legal limits. Follow your local RF-exposure and electrical-safety rules.',
+  'Radiated emissions and the use of radio frequencies are regulated. Operate only within the limits of your local regulations and licences, and defer to licensed practice where it applies.',
+];
+
+const ghz = (hz: number): string => `${trimmed(hz / 1e9, 6)} GHz`;
+const ROLE_LABEL: Record<Section['role'], string> = {
+  series: 'series line (load plane to stub centre-line)',
+  stub: 'stub (line edge to end)',
+  'lead-source': 'source lead (stub centre-line to source plane)',
+  'lead-load': 'load lead',
+};
+
+export function writeReport(input: ReportInput): Artifact {
+  const { spec, ideal, physical, response, geometry } = input;
+  const s = physical.solution;
+  const out: string[] = [];
+  out.push(`# Match design: ${spec.name}`, '');
+  out.push(`Made by tunestrip ${input.version}.`, '');
+  out.push('## Cautions', '', ...CAUTIONS.map((c) => `- ${c}`), '');
+  out.push('## Request', '');
+  out.push('| quantity | value |', '| --- | --- |');
+  out.push(`| design frequency | ${ghz(spec.frequency)} |`);
+  out.push(`| load impedance | ${impedanceText(spec.load.re, spec.load.im)} Ω |`);
+  out.push(`| target at the source port | ${impedanceText(spec.target.re, spec.target.im)} Ω |`);
+  out.push(`| series line / stub impedance | ${trimmed(spec.lineZ0, 3)} Ω / ${trimmed(spec.stubZ0, 3)} Ω |`);
+  out.push(`| stub requested | ${spec.stub}, ${spec.style} |`);
+  const sub = spec.substrate;
+  out.push(`| substrate | ${sub.preset ? `${sub.preset}: ` : ''}εr ${trimmed(sub.er, 4)}, h ${mm(sub.height, 4)} mm, copper ${trimmed(sub.copper * 1e6, 2)} µm, tan δ ${trimmed(sub.tanDelta, 5)} |`);
+  out.push('');
+  out.push('## Chosen match', '');
+  if (ideal.alreadyMatched) {
+    out.push('The load already presents the target at the design frequency: no stub is needed, a plain line is drawn.', '');
+  } else {
+    out.push(
+      `Branch ${s.branch}, ${s.termination}-circuit ${s.style === 'balanced' ? 'balanced stubs' : 'stub'}: stub ${fixed(s.stubWl, 5)} λ ${s.style === 'balanced' ? 'each ' : ''}at ${fixed(s.positionWl, 5)} λ from the load (ideal lines).`,
+      '',
+    );
+  }
+  out.push('| section | width (mm) | Z0 (Ω) | εeff | ideal length (mm) | drawn length (mm) |', '| --- | --- | --- | --- | --- | --- |');
+  for (const sec of physical.sections) {
+    out.push(`| ${ROLE_LABEL[sec.role]} | ${mm(sec.width)} | ${fixed(sec.z0, 2)} | ${fixed(sec.epsEff, 4)} | ${mm(sec.idealLength)} | ${mm(sec.length)} |`);
+  }
+  out.push('');
+  out.push('### Length corrections', '');
+  for (const sec of physical.sections) {
+    for (const c of sec.corrections) {
+      if (Math.abs(c.delta) < 5e-10) continue;
+      out.push(`- ${sec.role}: ${c.delta >= 0 ? '+' : ''}${mm(c.delta)} mm, ${c.model}`);
+    }
+  }
+  if (physical.via) {
+    out.push(`- via: ${physical.via.count} × ${mm(physical.via.drill)} mm drill in ${mm(physical.via.pad)} mm pads, ${fixed(physical.via.inductance * 1e9, 4)} nH together`);
+  }
+  out.push('');
+  out.push('## All ideal branches', '');
+  out.push('| branch | termination | position (λ) | stub (λ) | residual |Γ| |', '| --- | --- | --- | --- | --- |');
+  for (const b of ideal.solutions) {
+    out.push(`| ${b.branch} | ${b.termination} | ${fixed(b.positionWl, 5)} | ${fixed(b.stubWl, 5)} | ${b.residualGamma.toExponential(1)} |`);
+  }
+  out.push('');
+  out.push('## Predicted response', '');
+  out.push(`- |S11| at ${ghz(spec.frequency)} in the physical model: ${fixed(Math.max(physical.s11DbAtF0, -200), 1)} dB`);
+  out.push(
+    response.band10dB
+      ? `- return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)} (within the swept ${ghz(spec.sweep.start)} to ${ghz(spec.sweep.stop)})`
+      : '- return loss does not reach 10 dB at the design frequency',
+  );
+  out.push('- the load impedance is held constant over the band; a real device changes with frequency.');
+  out.push(`- footprint: x ${mm(geometry.bounds.xmin)} to ${mm(geometry.bounds.xmax)} mm, y ${mm(geometry.bounds.ymin)} to ${mm(geometry.bounds.ymax)} mm`);
+  out.push('');
+  out.push('## Diagnostics', '');
+  if (input.diagnostics.length === 0) out.push('None.');
+  for (const d of input.diagnostics) out.push(`- ${d.severity} ${d.code} at ${d.where}: ${d.message}`);
+  out.push('');
+  return { path: 'report.md', mediaType: 'text/markdown', text: out.join('\n') };
+}
