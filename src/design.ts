@@ -1,13 +1,16 @@
 // Runs every stage of the pipeline and keeps each seam and every diagnostic, so a caller can stop
 // at or dump any stage. Pure: text in, artifacts out; the CLI does the file I/O.
-import type { Diagnostic } from './diagnostics.js';
+import { diagnostic, fail, type Diagnostic } from './diagnostics.js';
 import type { Artifact, BoardGeometry, IdealSolution, PhysicalDesign, ResponseSet, Spec } from './seams.js';
 import { parseSpec, type Presets } from './spec/index.js';
-import { solveSingleStub } from './solve/index.js';
-import { planJunction, realize, sizeLines, type JunctionPlan, type SizedLines } from './physical/realize.js';
+import { sizeLines, type JunctionPlan, type SizedLines } from './physical/realize.js';
 import { sweep } from './analysis/sweep.js';
-import { layoutStubMatch, type StubLayoutInput } from './geometry/index.js';
+import { checkDesignRules, type FitReport } from './geometry/index.js';
 import { writeArtifacts } from './writers/index.js';
+import { hasSpaceLimits, layoutVariants, type LayoutVariant } from './layoutSearch.js';
+import { mm } from './format.js';
+
+export { layoutInputOf } from './layoutSearch.js';
 
 export interface DesignRun {
   readonly spec: Spec;
@@ -17,6 +20,9 @@ export interface DesignRun {
   readonly physical: PhysicalDesign;
   readonly response: ResponseSet;
   readonly geometry: BoardGeometry;
+  readonly fit: FitReport & { readonly changed: readonly string[] };
+  /** Every layout tried, most preferred first (the `fit` command prints them). */
+  readonly variants: readonly LayoutVariant[];
   readonly artifacts: readonly Artifact[];
   readonly diagnostics: readonly Diagnostic[];
 }
@@ -28,21 +34,29 @@ export interface DesignOptions {
 
 export function design(spec: Spec, options: DesignOptions, parseDiagnostics: readonly Diagnostic[] = []): DesignRun {
   const lines = sizeLines(spec);
-  const stubCount = spec.style === 'balanced' ? 2 : 1;
-  const junction = planJunction(spec, lines, stubCount);
-  const ideal = solveSingleStub({
-    load: spec.load,
-    target: junction.targetAtJunction,
-    lineZ0: spec.lineZ0,
-    stubZ0: spec.stubZ0,
-    style: spec.style,
-  });
-  const physical = realize(spec, lines, ideal.alreadyMatched ? planJunction(spec, lines, 0) : junction, ideal);
+  const variants = layoutVariants(spec, lines);
+  if (variants.length === 0) {
+    fail('solve.no-passive-solution', 'stub', `no ${spec.stub === 'best' ? '' : `${spec.stub}-circuit `}stub branch could be built and brought to the target on the physical network; try another stub termination, stub impedance or fabrication limits`);
+  }
+  const fitting = variants.findIndex((v) => v.fit.fits);
+  const chosen = variants[fitting >= 0 ? fitting : 0]!;
+  const fitDiagnostics: Diagnostic[] = [];
+  if (hasSpaceLimits(spec)) {
+    if (fitting < 0) {
+      const best = variants.reduce((a, b) => (b.fit.margin > a.fit.margin ? b : a));
+      fitDiagnostics.push(diagnostic('fit.no-fit', 'area', `no layout fits: the preferred one misses by ${mm(-chosen.fit.margin)} mm (${chosen.fit.limitedBy}); the closest of ${variants.length} tried misses by ${mm(-best.fit.margin)} mm`));
+    } else if (chosen.changed.length > 0) {
+      fitDiagnostics.push(diagnostic('fit.changed', 'area', `the preferred layout does not fit; changed to fit: ${chosen.changed.join(', ')}`));
+    }
+  }
+  const physical = chosen.physical;
   const response = sweep(spec, physical);
-  const geometry = layoutStubMatch(layoutInputOf(spec, physical));
-  const diagnostics = [...parseDiagnostics, ...physical.diagnostics];
-  const artifacts = writeArtifacts({ spec, ideal, physical, response, geometry, diagnostics, version: options.version });
-  return { spec, lines, junction, ideal, physical, response, geometry, artifacts, diagnostics };
+  const geometry = chosen.geometry;
+  const drc = checkDesignRules(geometry, spec.fab, spec.area);
+  const diagnostics = [...parseDiagnostics, ...physical.diagnostics, ...fitDiagnostics, ...drc];
+  const fit = { ...chosen.fit, changed: chosen.changed };
+  const artifacts = writeArtifacts({ spec, ideal: chosen.ideal, physical, response, geometry, diagnostics, fit, version: options.version });
+  return { spec, lines, junction: chosen.junction, ideal: chosen.ideal, physical, response, geometry, fit, variants, artifacts, diagnostics };
 }
 
 /** Parse a spec file's text and run the whole pipeline on it. */
@@ -50,23 +64,3 @@ export function designFromText(text: string, presets: Presets, options: DesignOp
   const parsed = parseSpec(text, presets, sourceName);
   return design(parsed.spec, options, parsed.diagnostics);
 }
-
-/** The copper dimensions the physical stage chose, handed to the geometry stage. */
-export function layoutInputOf(spec: Spec, physical: PhysicalDesign): StubLayoutInput {
-  const c = physical.copper;
-  return {
-    seriesWidth: c.seriesWidth,
-    seriesLength: c.seriesLength,
-    leadLength: c.leadLength,
-    stubWidth: c.stubWidth,
-    stubLength: c.stubLength,
-    stubSides: physical.stubSides,
-    termination: c.termination,
-    ...(c.vias ? { via: { drill: c.vias.drill, pad: c.vias.pad, count: c.vias.count, pitch: viaPitch(spec) } } : {}),
-    ...(spec.area ? { area: spec.area } : {}),
-    keepouts: spec.keepouts,
-  };
-}
-
-/** Vias in a row sit one pad apart plus the minimum space between drills' pads (common practice, no source). */
-const viaPitch = (spec: Spec): number => spec.fab.viaPad + spec.fab.minSpace;

@@ -25,8 +25,11 @@ export const CATALOGUE = {
   'fit.no-fit': { severity: 'error', hint: 'the copper does not fit the allowed area' },
   'fit.changed': { severity: 'info', hint: 'the layout was changed to fit the area' },
   'design.note': { severity: 'info', hint: '' },
+  'spec.bare-number': { severity: 'warning', hint: 'a number without a unit is read in SI units (Hz, ohm, S/m); write the unit to be sure' },
   'design.via-near-junction': { severity: 'warning', hint: 'a via close to the junction is the least certain part of a short-stub match' },
   'design.refine-failed': { severity: 'warning', hint: 'the physical network refinement did not converge' },
+  'fab.min-space': { severity: 'error', hint: 'two pieces of copper are closer than the fabrication minimum space' },
+  'fab.copper-to-edge': { severity: 'error', hint: 'copper is closer to the board edge than the fabrication minimum' },
 } as const satisfies Record<string, { severity: Severity; hint: string }>;
 
 export type DiagnosticCode = keyof typeof CATALOGUE;

@@ -1,8 +1,9 @@
 // The physical network of a single-stub match at one frequency: load → series line → T-junction
 // (reference planes, transformer ratios, junction susceptance) with one or two stubs (open end or
-// via) → source lead → source port. Lines are dispersive and lossy; every model is re-evaluated at
+// via) → source lead → source port, as an ABCD cascade. Lines are dispersive and lossy; every model is re-evaluated at
 // the frequency asked, so a sweep is this function over a grid.
 import { add, complex, div, inv, scale, type Complex } from '../math/complex.js';
+import { cascade, inputImpedanceOf, lineAbcd, shuntAdmittanceAbcd, transformerAbcd, type Abcd } from '../math/network.js';
 import type { MatchCopper, Substrate } from '../seams.js';
 import { analyseMicrostrip, propagationConstant } from '../physical/microstrip/index.js';
 import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceGoldfarbPucel, viaResistance } from '../physical/discontinuities/index.js';
@@ -44,7 +45,35 @@ export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency:
   return { da: tee.da, db: tee.db, d2, n2a: tee.n2a, n2b: tee.n2b, susceptance: tee.susceptance };
 }
 
-/** Input impedance at the source port of the physical network at `frequency`. */
+/**
+ * The physical match as a two-port from the source port (1) to the load plane (2), as an ABCD
+ * cascade: source lead → transformer n_b → junction shunt (stubs and B_T) → transformer n_a →
+ * series line. Transformer ratios follow physics.md §4.2: the admittance seen at an arm's
+ * reference plane is n² times the admittance at the junction node.
+ */
+export function physicalAbcd(copper: MatchCopper, substrate: Substrate, frequency: number, models: NetworkModels = ALL_MODELS): Abcd {
+  const main = analyseMicrostrip(copper.seriesWidth, substrate, frequency);
+  const stubLine = analyseMicrostrip(copper.stubWidth, substrate, frequency);
+  const gammaMain = lossless(propagationConstant(main), models.loss);
+  const gammaStub = lossless(propagationConstant(stubLine), models.loss);
+  if (copper.stubCount === 0) return lineAbcd(main.z0, gammaMain, copper.seriesLength + copper.leadLength);
+  const j: JunctionView = models.junction
+    ? junctionAt(copper, substrate, frequency)
+    : { da: 0, db: 0, d2: copper.seriesWidth / 2, n2a: 1, n2b: 1, susceptance: 0 };
+  // Stub: from the junction plane (d2 from the main-line centre) to its end.
+  const stubFromPlane = copper.stubLength + copper.seriesWidth / 2 - j.d2;
+  const yStub = stubAdmittance(copper, stubLine.z0, gammaStub, stubFromPlane, stubLine, substrate, frequency, models);
+  const yShunt = add(scale(yStub, copper.stubCount), complex(0, j.susceptance));
+  return cascade(
+    lineAbcd(main.z0, gammaMain, copper.leadLength - j.db),
+    transformerAbcd(1 / Math.sqrt(j.n2b)),
+    shuntAdmittanceAbcd(yShunt),
+    transformerAbcd(Math.sqrt(j.n2a)),
+    lineAbcd(main.z0, gammaMain, copper.seriesLength - j.da),
+  );
+}
+
+/** Input impedance at the source port of the physical network at `frequency`, terminated in `load`. */
 export function physicalInputImpedance(
   copper: MatchCopper,
   load: Complex,
@@ -52,26 +81,7 @@ export function physicalInputImpedance(
   frequency: number,
   models: NetworkModels = ALL_MODELS,
 ): Complex {
-  const main = analyseMicrostrip(copper.seriesWidth, substrate, frequency);
-  const stubLine = analyseMicrostrip(copper.stubWidth, substrate, frequency);
-  const gammaMain = lossless(propagationConstant(main), models.loss);
-  const gammaStub = lossless(propagationConstant(stubLine), models.loss);
-  if (copper.stubCount === 0) return inputImpedance(load, main.z0, gammaMain, copper.seriesLength + copper.leadLength);
-  const j: JunctionView = models.junction
-    ? junctionAt(copper, substrate, frequency)
-    : { da: 0, db: 0, d2: copper.seriesWidth / 2, n2a: 1, n2b: 1, susceptance: 0 };
-
-  // Load side: series line from the load plane to arm a's reference plane.
-  const zArmA = inputImpedance(load, main.z0, gammaMain, copper.seriesLength - j.da);
-  // Stub: from the junction plane (d2 from the main-line centre) to its end.
-  const stubFromPlane = copper.stubLength + copper.seriesWidth / 2 - j.d2;
-  const yStub = stubAdmittance(copper, stubLine.z0, gammaStub, stubFromPlane, stubLine, substrate, frequency, models);
-  const yJunction = add(
-    add(scale(inv(zArmA), 1 / j.n2a), scale(yStub, copper.stubCount)),
-    complex(0, j.susceptance),
-  );
-  const zArmB = inv(scale(yJunction, j.n2b));
-  return inputImpedance(zArmB, main.z0, gammaMain, copper.leadLength - j.db);
+  return inputImpedanceOf(physicalAbcd(copper, substrate, frequency, models), load);
 }
 
 function stubAdmittance(

@@ -1,7 +1,20 @@
 // The only place that touches the file system and the process. Everything the CLI needs from the
 // outside world goes through the Io interface, so main() can be tested in-process.
-import { existsSync, mkdirSync, readdirSync, readFileSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
-import { dirname, join, resolve, sep } from 'node:path';
+import {
+  closeSync,
+  existsSync,
+  fsyncSync,
+  lstatSync,
+  mkdirSync,
+  openSync,
+  readFileSync,
+  readdirSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeSync,
+} from 'node:fs';
+import { dirname, isAbsolute, join, relative, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Artifact } from '../seams.js';
 
@@ -26,6 +39,12 @@ export class IoError extends Error {
 /** Marks a folder as tunestrip's own and lists what it wrote there, so a rerun replaces exactly that. */
 export const MARKER = '.tunestrip-output';
 
+/** A file name tunestrip writes or removes: no folder part, no leading dot, nothing odd. */
+export const SAFE_FILE_NAME = /^[A-Za-z0-9][A-Za-z0-9._-]*$/;
+
+/** Temporary files of an interrupted run: `.<name>.tmp-<pid>`. */
+const TEMP_NAME = /^\.[A-Za-z0-9][A-Za-z0-9._-]*\.tmp-\d+$/;
+
 export const packageRoot = (): string => resolve(dirname(fileURLToPath(import.meta.url)), '..', '..');
 
 export function nodeIo(cwd = process.cwd()): Io {
@@ -39,18 +58,39 @@ export function nodeIo(cwd = process.cwd()): Io {
   };
 }
 
+const errno = (e: unknown): string => (e as NodeJS.ErrnoException)?.code ?? 'error';
+
+const REASONS: Readonly<Record<string, string>> = {
+  ENOENT: 'no such file',
+  EACCES: 'permission denied',
+  EPERM: 'permission denied',
+  EISDIR: 'is a folder, not a file',
+  ENOTDIR: 'a part of the path is not a folder',
+  ELOOP: 'too many symbolic links',
+  ENAMETOOLONG: 'the path is too long',
+};
+const reason = (e: unknown): string => REASONS[errno(e)] ?? errno(e);
+
+/** Reads a regular file of at most maxBytes as UTF-8 (bad bytes become U+FFFD, which the spec reader refuses). */
 function readTextFile(path: string, maxBytes: number): string {
   let size: number;
   try {
     const st = statSync(path);
-    if (!st.isFile()) throw new IoError(`${path}: not a file`);
+    if (!st.isFile()) throw new IoError(`${path}: not a regular file${st.isDirectory() ? ' (it is a folder)' : ''}; give a spec file`);
     size = st.size;
   } catch (e) {
     if (e instanceof IoError) throw e;
-    throw new IoError(`${path}: cannot read the file (${(e as NodeJS.ErrnoException).code ?? 'error'})`);
+    throw new IoError(`${path}: cannot read the file (${reason(e)})`);
   }
   if (size > maxBytes) throw new IoError(`${path}: the file is ${size} bytes; spec files are limited to ${maxBytes} bytes`);
-  const bytes = readFileSync(path);
+  let bytes: Buffer;
+  try {
+    bytes = readFileSync(path);
+  } catch (e) {
+    throw new IoError(`${path}: cannot read the file (${reason(e)})`);
+  }
+  // The file may have grown between stat and read.
+  if (bytes.length > maxBytes) throw new IoError(`${path}: the file is over ${maxBytes} bytes; spec files are limited to ${maxBytes} bytes`);
   return bytes.toString('utf8');
 }
 
@@ -70,52 +110,100 @@ const crashAfter = (): number | null => {
   return v && /^\d+$/.test(v) ? Number(v) : null;
 };
 
+/** Writes text to a new file and flushes it to disk, so a rename never exposes a file the disk has not got. */
+function writeDurably(path: string, text: string): void {
+  const fd = openSync(path, 'wx', 0o644);
+  try {
+    const bytes = Buffer.from(text, 'utf8');
+    let done = 0;
+    while (done < bytes.length) done += writeSync(fd, bytes, done, bytes.length - done);
+    fsyncSync(fd);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** The marker lists the files a run wrote; only plain names are taken from it. */
+function markerFiles(marker: string): string[] {
+  return readFileSync(marker, 'utf8')
+    .split('\n')
+    .filter((l) => SAFE_FILE_NAME.test(l) && l !== MARKER);
+}
+
+function writeMarker(dir: string, files: readonly string[], stamp: string): void {
+  const temp = join(dir, `.${MARKER}.tmp-${stamp}`);
+  writeDurably(temp, `${[...new Set(files)].sort().join('\n')}\n`);
+  renameSync(temp, join(dir, MARKER));
+}
+
 /**
  * Writes each artifact to a temporary name in the output folder, then renames them all into
  * place: a crash leaves either the old file or the new one, never a partial one. Writes only
- * inside `dir`; refuses a folder tunestrip did not make unless `force`.
+ * inside `dir`; refuses a folder tunestrip did not make unless `force`. A folder tunestrip makes
+ * is marked before any artifact reaches it, so a rerun after a crash may write there again.
  */
 export function writeOutputsAtomically(dir: string, artifacts: readonly Artifact[], options: { readonly force: boolean }): string[] {
+  const names = new Set<string>();
   for (const a of artifacts) {
-    const target = resolve(dir, a.path);
-    if (!/^[A-Za-z0-9][A-Za-z0-9._-]*$/.test(a.path) || !target.startsWith(dir + sep)) {
-      throw new IoError(`refusing to write ${JSON.stringify(a.path)} outside ${dir}`, 1);
+    const rel = relative(dir, resolve(dir, a.path));
+    if (!SAFE_FILE_NAME.test(a.path) || a.path === MARKER || rel !== a.path || isAbsolute(rel) || names.has(a.path)) {
+      throw new IoError(`refusing to write ${JSON.stringify(a.path)}: output files are plain, distinct names inside ${dir}`, 1);
     }
+    names.add(a.path);
   }
+  try {
+    return writeInto(dir, artifacts, options);
+  } catch (e) {
+    if (e instanceof IoError) throw e;
+    throw new IoError(`cannot write into ${dir} (${reason(e)})`, 2);
+  }
+}
+
+function writeInto(dir: string, artifacts: readonly Artifact[], options: { readonly force: boolean }): string[] {
   const marker = join(dir, MARKER);
+  const stamp = `${process.pid}`;
   let previous: string[] = [];
-  if (existsSync(dir)) {
-    if (!statSync(dir).isDirectory()) throw new IoError(`${dir} exists and is not a folder`);
-    // Temporary files left by a run that was killed mid-write are ours to clear.
-    for (const e of readdirSync(dir)) if (/^\..+\.tmp-\d+$/.test(e)) rmSync(join(dir, e), { force: true });
-    const entries = readdirSync(dir);
-    if (existsSync(marker)) {
-      previous = readFileSync(marker, 'utf8').split('\n').filter((l) => /^[A-Za-z0-9][A-Za-z0-9._-]*$/.test(l));
-    } else if (entries.length > 0 && !options.force) {
+  let exists = true;
+  try {
+    lstatSync(dir);
+  } catch (e) {
+    if (errno(e) !== 'ENOENT') throw e;
+    exists = false;
+  }
+  if (exists) {
+    if (!statSync(dir).isDirectory()) throw new IoError(`${dir} exists and is not a folder; choose another --out`);
+    const ours = existsSync(marker);
+    if (ours) {
+      previous = markerFiles(marker);
+      // Temporary files left by a run that was killed mid-write are ours to clear.
+      for (const e of readdirSync(dir)) if (TEMP_NAME.test(e)) rmSync(join(dir, e), { force: true });
+    } else if (readdirSync(dir).length > 0 && !options.force) {
       throw new IoError(`${dir} exists and was not made by tunestrip; choose another --out or pass --force`);
     }
   } else {
     mkdirSync(dir, { recursive: true });
   }
-  const stamp = `${process.pid}`;
+  // Claim the folder, listing old and new names, before any artifact is renamed into it.
+  const written = artifacts.map((a) => a.path);
+  writeMarker(dir, [...previous, ...written], stamp);
+
   const temps: string[] = [];
   const limit = crashAfter();
   try {
     for (const a of artifacts) {
       const temp = join(dir, `.${a.path}.tmp-${stamp}`);
-      writeFileSync(temp, a.text, { encoding: 'utf8', flag: 'wx' });
+      rmSync(temp, { force: true });
+      writeDurably(temp, a.text);
       temps.push(temp);
       if (limit !== null && temps.length >= limit) process.kill(process.pid, 'SIGKILL');
     }
   } catch (e) {
     for (const t of temps) rmSync(t, { force: true });
-    throw new IoError(`cannot write into ${dir}: ${(e as Error).message}`, 1);
+    throw new IoError(`cannot write into ${dir} (${reason(e)}); the files there are unchanged`, 1);
   }
   artifacts.forEach((a, i) => renameSync(temps[i]!, join(dir, a.path)));
-  const written = artifacts.map((a) => a.path);
-  for (const old of previous) if (!written.includes(old)) rmSync(join(dir, old), { force: true });
-  const markerTemp = join(dir, `.${MARKER}.tmp-${stamp}`);
-  writeFileSync(markerTemp, `${written.join('\n')}\n`);
-  renameSync(markerTemp, marker);
+  const keep = new Set(written);
+  for (const old of previous) if (!keep.has(old)) rmSync(join(dir, old), { force: true });
+  writeMarker(dir, written, stamp);
   return written.map((p) => join(dir, p));
 }

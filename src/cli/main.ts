@@ -10,7 +10,7 @@ import { parseImpedance, parseQuantity } from '../units.js';
 import { analyseMicrostrip, synthesizeMicrostrip } from '../physical/microstrip/index.js';
 import { designRecord } from '../writers/json.js';
 import { IoError, type Io } from './io.js';
-import { designSummary, diagnosticLine, lineSummary, solveTable } from './print.js';
+import { designSummary, diagnosticLine, fitTable, lineSummary, solveTable } from './print.js';
 import type { Substrate } from '../seams.js';
 
 /** Spec files are small hand-written texts; anything larger is refused before parsing. */
@@ -29,6 +29,9 @@ function parser(version: string): Argv {
         .option('force', { type: 'boolean', default: false, describe: 'write into an existing folder tunestrip did not make' })
         .option('allow-drc', { type: 'boolean', default: false, describe: 'write files even when a design rule is broken' })
         .option('json', { type: 'boolean', default: false, describe: 'print design.json instead of the summary' }),
+    )
+    .command('fit <spec>', 'print every layout variant with its footprint and its margin to the area and keep-outs', (y) =>
+      y.positional('spec', { type: 'string', describe: 'spec file, YAML or JSON' }).option('json', { type: 'boolean', default: false }),
     )
     .command('solve', 'print every ideal single-stub solution for a load', (y) =>
       y
@@ -94,6 +97,8 @@ export function main(argv: readonly string[], io: Io, version: string): number {
     switch (String(args._[0])) {
       case 'design':
         return runDesign(args, io, version);
+      case 'fit':
+        return runFit(args, io, version);
       case 'solve':
         return runSolve(args, io);
       case 'line':
@@ -145,6 +150,32 @@ function runDesign(args: Args, io: Io, version: string): number {
     io.stdout(designSummary(run, written, outDir));
   }
   return errors.length > 0 ? 1 : 0;
+}
+
+function runFit(args: Args, io: Io, version: string): number {
+  const specPath = String(args.spec);
+  const text = io.readText(specPath, MAX_SPEC_BYTES);
+  const presets = { substrates: io.readPresets('substrates'), fab: io.readPresets('fab') };
+  const run = designFromText(text, presets, { version }, specPath);
+  if (args.json === true) {
+    const rows = run.variants.map((v) => ({
+      style: v.style,
+      termination: v.physical.solution.termination,
+      branch: v.physical.solution.branch,
+      side: v.physical.stubSides.join('+'),
+      fold: v.fold,
+      stub_length_m: v.physical.copper.stubLength,
+      footprint_m: v.geometry.bounds,
+      fits: v.fit.fits,
+      margin_m: Number.isFinite(v.fit.margin) ? v.fit.margin : null,
+      limited_by: v.fit.limitedBy,
+      chosen: v.physical === run.physical,
+    }));
+    io.stdout(`${JSON.stringify({ variants: rows }, null, 2)}\n`);
+  } else {
+    io.stdout(fitTable(run));
+  }
+  return run.fit.fits ? 0 : 1;
 }
 
 function runSolve(args: Args, io: Io): number {

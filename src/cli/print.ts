@@ -30,6 +30,10 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
   lines.push(
     `  predicted |S11| at f0 ${fixed(Math.max(physical.s11DbAtF0, -200), 1)} dB; ${response.band10dB ? `return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)}` : 'return loss below 10 dB at f0'}`,
   );
+  if (Number.isFinite(run.fit.margin)) {
+    lines.push(`  fit: ${run.fit.fits ? 'fits' : 'does not fit'}, worst margin ${mm(run.fit.margin)} mm (${run.fit.limitedBy})${run.fit.changed.length ? `; changed to fit: ${run.fit.changed.join(', ')}` : ''}`);
+  }
+  for (const d of run.diagnostics) if (d.severity === 'info') lines.push(`  note: ${d.message}`);
   lines.push(`  wrote ${written.length} files to ${outDir}`);
   lines.push('  verify by EM simulation or measurement before building');
   return `${lines.join('\n')}\n`;
@@ -58,3 +62,17 @@ export function lineSummary(line: LineProperties): string {
 }
 
 export const diagnosticLine = (d: Diagnostic): string => `${d.severity}: ${d.where}: ${d.message}`;
+
+export function fitTable(run: DesignRun): string {
+  const lines = ['   style     stub   branch  side         fold      stub (mm)  footprint (mm)   margin (mm)  fits'];
+  for (const v of run.variants) {
+    const b = v.geometry.bounds;
+    const chosen = v.physical === run.physical ? '▶' : ' ';
+    const margin = Number.isFinite(v.fit.margin) ? mm(v.fit.margin, 3) : 'no limits';
+    lines.push(
+      `${chosen}  ${v.style.padEnd(9)} ${v.physical.solution.termination.padEnd(6)} ${String(v.physical.solution.branch).padEnd(7)} ${v.physical.stubSides.join('+').padEnd(12)} ${v.fold.padEnd(9)} ${mm(v.physical.copper.stubLength).padStart(9)}  ${`${mm(b.xmax - b.xmin, 2)} × ${mm(b.ymax - b.ymin, 2)}`.padEnd(16)} ${margin.padStart(11)}  ${v.fit.fits ? 'yes' : `no (${v.fit.limitedBy})`}`,
+    );
+  }
+  if (run.fit.changed.length > 0) lines.push(`changed to fit: ${run.fit.changed.join(', ')}`);
+  return `${lines.join('\n')}\n`;
+}

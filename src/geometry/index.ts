@@ -20,3 +20,5 @@ export {
   pointInRing,
 } from './polygon.js';
 export { unionRings, type UnionIsland } from './union.js';
+export { checkFit, distanceToRing, areaSlack, type FitReport } from './fit.js';
+export { checkDesignRules } from './rules.js';

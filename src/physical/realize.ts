@@ -109,30 +109,45 @@ interface Candidate {
   readonly notes: readonly Diagnostic[];
 }
 
-/** Realise every admissible ideal branch and keep the one with the shortest buildable stub. */
-export function realize(spec: Spec, lines: SizedLines, plan: JunctionPlan, ideal: IdealSolution): PhysicalDesign {
-  const stubCount: 1 | 2 = spec.style === 'balanced' ? 2 : 1;
-  const stubSides = spec.style === 'balanced' ? (['left', 'right'] as const) : ([spec.stubSide] as const);
-  const diagnostics: Diagnostic[] = [...lines.diagnostics];
+/**
+ * Every buildable physical design for the given terminations, best first: shortest stub, then
+ * shorter series line. Empty when no branch could be brought to the target.
+ */
+export function realizeAll(
+  spec: Spec,
+  lines: SizedLines,
+  plan: JunctionPlan,
+  ideal: IdealSolution,
+  terminations: readonly ('open' | 'short')[] = spec.stub === 'best' ? ['open', 'short'] : [spec.stub],
+): PhysicalDesign[] {
+  const stubCount: 1 | 2 = ideal.solutions[0]?.style === 'balanced' ? 2 : 1;
+  const stubSides = stubCount === 2 ? (['left', 'right'] as const) : ([spec.stubSide] as const);
   const via = spec.fab.viasPerStub > 0 ? viaOf(spec) : undefined;
-  if (ideal.alreadyMatched) return matchedLine(spec, lines, ideal, diagnostics);
-
-  const wanted = ideal.solutions.filter((s) => spec.stub === 'best' || s.termination === spec.stub);
-  const candidates = wanted.map((s) => realizeBranch(spec, lines, plan, s, stubCount, via));
-  const usable = candidates.filter((c) => c.converged);
-  if (usable.length === 0) {
-    const worst = candidates.reduce((m, c) => Math.max(m, c.residual), 0);
-    fail('solve.no-passive-solution', 'stub', `the physical network could not be brought to the target (best |Γ| ${worst.toExponential(2)}); try another stub termination or impedance`);
-  }
-  const chosen = [...usable].sort((a, b) => a.copper.stubLength - b.copper.stubLength || a.copper.seriesLength - b.copper.seriesLength)[0]!;
-  diagnostics.push(...chosen.notes);
-  if (chosen.copper.termination === 'short' && via) {
-    const ring = (via.pad - via.drill) / 2;
-    if (ring < spec.fab.minAnnularRing) {
-      diagnostics.push(diagnostic('fab.annular-ring', 'fab.via_pad', `annular ring ${mm(ring)} mm is below fab.min_annular_ring ${mm(spec.fab.minAnnularRing)} mm`));
+  if (ideal.alreadyMatched) return [matchedLine(spec, lines, ideal, [...lines.diagnostics])];
+  const candidates = ideal.solutions
+    .filter((s) => terminations.includes(s.termination))
+    .map((s) => realizeBranch(spec, lines, plan, s, stubCount, via))
+    .filter((c) => c.converged)
+    .sort((a, b) => a.copper.stubLength - b.copper.stubLength || a.copper.seriesLength - b.copper.seriesLength);
+  return candidates.map((c) => {
+    const diagnostics: Diagnostic[] = [...lines.diagnostics, ...c.notes];
+    if (c.copper.termination === 'short' && via) {
+      const ring = (via.pad - via.drill) / 2;
+      if (ring < spec.fab.minAnnularRing) {
+        diagnostics.push(diagnostic('fab.annular-ring', 'fab.via_pad', `annular ring ${mm(ring)} mm is below fab.min_annular_ring ${mm(spec.fab.minAnnularRing)} mm`));
+      }
     }
+    return assemble(spec, lines, plan, c, stubSides, via, diagnostics);
+  });
+}
+
+/** The best buildable design for the spec's own choices (termination, style, side). */
+export function realize(spec: Spec, lines: SizedLines, plan: JunctionPlan, ideal: IdealSolution): PhysicalDesign {
+  const all = realizeAll(spec, lines, plan, ideal);
+  if (all.length === 0) {
+    fail('solve.no-passive-solution', 'stub', `no ${spec.stub === 'best' ? '' : `${spec.stub}-circuit `}stub branch could be built and brought to the target on the physical network; try another stub termination, stub impedance or fabrication limits`);
   }
-  return assemble(spec, lines, plan, chosen, stubSides, via, diagnostics);
+  return all[0]!;
 }
 
 function viaOf(spec: Spec): ViaSpec {

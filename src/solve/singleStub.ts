@@ -20,7 +20,10 @@ export interface StubProblem {
   readonly style: StubStyle;
 }
 
-/** |Γ| below which two impedances count as equal, and the bound every returned residual must meet. */
+/**
+ * |Γ| below which two impedances count as equal; returned residuals meet it except where rounding d and ℓ
+ * to doubles alone moves the input admittance further (loads with VSWR beyond about 1e5).
+ */
 export const MATCH_TOLERANCE = 1e-9;
 
 /** Relative conductance error accepted when two nearly equal roots are merged into the tangent point. */
@@ -161,7 +164,8 @@ function unreachable(problem: StubProblem, gT: number): never {
     'solve.no-passive-solution',
     'target',
     `the target conductance Re(1/Zt) = ${trimmed(gT * y0mS, 4)} mS is unreachable with a single shunt stub on a ` +
-      `${trimmed(problem.lineZ0, 4)} Ω line: along that line the load only presents conductances${range}`,
+      `${trimmed(problem.lineZ0, 4)} Ω line: along that line the load only presents conductances${range}; ` +
+      'a series line of another impedance, or a second stub, is needed',
   );
 }
 

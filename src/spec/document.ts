@@ -1,7 +1,7 @@
 // Spec text → plain data, plus where each JSON path sits in the text. YAML 1.2 (so JSON too).
 // Every problem with the text itself is one 'spec.syntax' or 'spec.too-large' error naming its line.
 import YAML, { LineCounter, isMap, isPair, isScalar, isSeq, type Node } from 'yaml';
-import { fail } from '../diagnostics.js';
+import { TunestripError, fail } from '../diagnostics.js';
 
 export const MAX_SPEC_BYTES = 1024 * 1024;
 
@@ -48,6 +48,45 @@ function refuseBinary(text: string, source: string): void {
 
 const firstLine = (message: string): string => (message.split('\n')[0] ?? '').replace(/ at line \d+, column \d+:?$/, '').trim();
 
+/** The parser's message in the spec's terms: no library advice, no stack-depth jargon. */
+function parserMessage(message: string): string {
+  const text = firstLine(message);
+  if (/call stack/i.test(text)) return 'the text is nested too deeply to be a spec (lists or mappings inside each other)';
+  if (/multiple documents/i.test(text)) return 'the file holds more than one YAML document (a second "---" line); a spec is a single document';
+  return text;
+}
+
+/**
+ * Keys must be plain text and unique in each mapping. Checked here in one linear walk rather than by
+ * the parser's own uniqueKeys option, which compares every pair of keys: a 1 MiB file of short keys
+ * would take minutes.
+ */
+function refuseOddKeys(node: unknown, counter: LineCounter, source: string): void {
+  const where = (n: Node | null | undefined): string => {
+    if (!n?.range) return source;
+    const pos = counter.linePos(n.range[0]);
+    return `${source}:${pos.line}:${pos.col}`;
+  };
+  if (isMap(node)) {
+    const seen = new Map<string, Node>();
+    for (const item of node.items) {
+      if (!isPair(item)) continue;
+      const keyNode = item.key as Node | null;
+      if (keyNode !== null && !isScalar(keyNode)) fail('spec.syntax', where(keyNode), 'a key is a list or mapping; keys must be plain names such as frequency');
+      const key = isScalar(keyNode) ? String(keyNode.value) : '';
+      const first = seen.get(key);
+      if (first !== undefined) {
+        const line = first.range ? counter.linePos(first.range[0]).line : undefined;
+        fail('spec.syntax', where(keyNode), `the key ${JSON.stringify(key.length > 40 ? `${key.slice(0, 37)}…` : key)} appears twice${line === undefined ? '' : ` (first at line ${line})`}; map keys must be unique`);
+      }
+      if (keyNode !== null) seen.set(key, keyNode);
+      refuseOddKeys(item.value, counter, source);
+    }
+  } else if (isSeq(node)) {
+    for (const item of node.items) refuseOddKeys(item, counter, source);
+  }
+}
+
 function recordLines(node: unknown, path: string, counter: LineCounter, lines: Map<string, number>): void {
   const at = (n: Node | null | undefined): number | undefined => (n?.range ? counter.linePos(n.range[0]).line : undefined);
   if (isMap(node)) {
@@ -79,22 +118,25 @@ export function readDocument(text: string, source: string): SpecDocument {
   const body = text.startsWith('\ufeff') ? text.slice(1) : text;
   refuseBinary(body, source);
   const counter = new LineCounter();
-  const doc = YAML.parseDocument(body, { lineCounter: counter, prettyErrors: false, uniqueKeys: true, strict: true });
+  // logLevel 'error': the parser must not print warnings of its own (the CLI owns stderr).
+  const doc = YAML.parseDocument(body, { lineCounter: counter, prettyErrors: false, uniqueKeys: false, strict: true, logLevel: 'error' });
   const error = doc.errors[0];
   if (error) {
     const pos = counter.linePos(error.pos[0]);
-    fail('spec.syntax', `${source}:${pos.line}:${pos.col}`, firstLine(error.message));
+    fail('spec.syntax', `${source}:${pos.line}:${pos.col}`, parserMessage(error.message));
   }
   let data: unknown;
+  const lines = new Map<string, number>();
   try {
+    refuseOddKeys(doc.contents, counter, source);
     data = doc.toJS({ maxAliasCount: 100 });
+    recordLines(doc.contents, '', counter, lines);
   } catch (cause) {
+    if (cause instanceof TunestripError) throw cause;
     // Unresolved or runaway aliases surface only when the document is turned into data.
-    const message = cause instanceof Error ? firstLine(cause.message) : 'cannot be read';
+    const message = cause instanceof Error ? parserMessage(cause.message) : 'cannot be read';
     fail('spec.syntax', source, `${message}`);
   }
-  const lines = new Map<string, number>();
-  recordLines(doc.contents, '', counter, lines);
   return { data, lines };
 }
 

@@ -125,19 +125,30 @@ export function parseFabPreset(text: string, name: string): FabRules {
 /** Parse and validate a spec file (YAML or JSON). Throws TunestripError with the first error. */
 export function parseSpec(text: string, presets: Presets, sourceName = 'spec'): ParsedSpec {
   const doc = readDocument(text, sourceName);
-  if (!isRecord(doc.data)) {
-    fail(
+  const data = doc.data;
+  if (!isRecord(data)) {
+    return fail(
       'spec.invalid',
       '(root)',
-      doc.data === null || doc.data === undefined
+      data === null || data === undefined
         ? 'the spec is empty; it needs at least name, frequency, load and substrate'
-        : `the spec is ${shown(doc.data)}, not a mapping of keys (name, frequency, load, substrate, …)`,
+        : `the spec is ${shown(data)}, not a mapping of keys (name, frequency, load, substrate, …)`,
     );
   }
-  const diagnostics: Diagnostic[] = unknownKeys(doc.data, SPEC_FIELDS);
-  const values = validate(specSchema, doc.data, doc, sourceName, '(root)');
+  const diagnostics: Diagnostic[] = unknownKeys(data, SPEC_FIELDS);
+  const values = validate(specSchema, data, doc, sourceName, '(root)');
+  diagnostics.push(...bareFrequencies(data));
   const spec = withLine(doc, sourceName, () => resolve(values, presets, diagnostics));
   return { spec, diagnostics };
+}
+
+/** A frequency written as a bare number below 1 MHz is read as Hz; say so, since "5.8" likely meant GHz. */
+function bareFrequencies(data: Record<string, unknown>): Diagnostic[] {
+  const sweep = isRecord(data.sweep) ? data.sweep : {};
+  const candidates: [string, unknown][] = [['frequency', data.frequency], ['sweep.start', sweep.start], ['sweep.stop', sweep.stop]];
+  return candidates
+    .filter(([, v]) => typeof v === 'number' && v > 0 && v < 1e6)
+    .map(([where, v]) => diagnostic('spec.bare-number', where, `${shown(v)} has no unit and is read as ${shown(v)} Hz; write e.g. "${shown(v)} GHz" if that was meant`));
 }
 
 function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): Spec {

@@ -51,7 +51,11 @@ export function parseRegion(value: unknown, where: string): Region {
   if (!Array.isArray(raw) || raw.length < 3) {
     return fail('spec.invalid', `${where}.polygon`, `needs a list of at least three points [x, y] (got ${Array.isArray(raw) ? `${raw.length}` : shown(raw)})`);
   }
-  const points = raw.map((p, i) => pair(p, `${where}.polygon[${i}]`, 'a point'));
+  const given = raw.map((p, i) => pair(p, `${where}.polygon[${i}]`, 'a point'));
+  // A ring is stored without its closing point; drop it when the file repeats the first point last.
+  const [first, last] = [given[0], given[given.length - 1]];
+  const closed = given.length > 3 && first !== undefined && last !== undefined && first[0] === last[0] && first[1] === last[1];
+  const points = closed ? given.slice(0, -1) : given;
   if (twiceArea(points) === 0) fail('spec.invalid', `${where}.polygon`, 'encloses no area (all points on one line)');
   return { kind: 'polygon', points };
 }

@@ -10,7 +10,7 @@
 // as CIRCLE). Units: millimetres, $INSUNITS 4 and $MEASUREMENT 1; 6 decimals.
 import type { Artifact, BoardGeometry, Bounds, Point, Region, Ring } from '../seams.js';
 import { EMPTY_BOUNDS, isEmptyBounds, mergeBounds, ringBounds } from '../geometry/polygon.js';
-import { mm6, type ArtworkMeta } from './units.js';
+import { labelHeight, mm6, type ArtworkMeta } from './units.js';
 
 export type { ArtworkMeta } from './units.js';
 
@@ -83,13 +83,11 @@ function text(d: Drawing, layer: string, at: Point, height: number, content: str
 function region(d: Drawing, layer: string, r: Region): void {
   if (r.kind === 'circle') circle(d, layer, r.center, r.radius);
   else if (r.kind === 'rect') polyline(d, layer, [[r.x[0], r.y[0]], [r.x[1], r.y[0]], [r.x[1], r.y[1]], [r.x[0], r.y[1]]], true);
-  else polyline(d, layer, r.points, true);
-}
-
-/** Text height for labels: 1/40 of the larger copper extent, between 0.25 mm and 3 mm (our choice). */
-export function labelHeight(b: Bounds): number {
-  const span = isEmptyBounds(b) ? 0 : Math.max(b.xmax - b.xmin, b.ymax - b.ymin);
-  return Math.min(3e-3, Math.max(0.25e-3, Math.round((span / 40) * 1e5) / 1e5));
+  else {
+    // Drop repeated points (a closing point given twice) on the written 6-decimal grid.
+    const key = ([x, y]: Point): string => `${mm6(x)},${mm6(y)}`;
+    polyline(d, layer, r.points.filter((p, i) => key(p) !== key(r.points[(i + r.points.length - 1) % r.points.length]!)), true);
+  }
 }
 
 function drawContent(g: BoardGeometry, meta: ArtworkMeta): Drawing {

@@ -6,9 +6,9 @@ import { asciiText, fileStem, gerberCoordinate, gerberXY, mm6, type ArtworkMeta 
 export type { ArtworkMeta } from './units.js';
 
 const MEDIA_TYPE = 'application/vnd.gerber';
-/** Characters with a meaning in Gerber syntax: never inside a comment (§4.1) … */
+/** Characters with a meaning in Gerber syntax: never inside a comment (§4.1; from memory) … */
 const RESERVED_IN_COMMENT = '*%';
-/** … nor inside an attribute field, where ',' separates fields (§5.1). */
+/** … nor inside an attribute field, where ',' separates fields (§5.1; from memory). */
 const RESERVED_IN_FIELD = '*%,';
 /** Aperture of the profile stroke (common practice, no source: a thin line on the profile centre). */
 const PROFILE_STROKE = 0.1e-3;
@@ -45,8 +45,9 @@ const region = (rings: readonly Ring[]): string[] => ['G36*', ...rings.flatMap(c
 
 /**
  * Copper top layer. Each island is one region with AperFunction Conductor (§5.6.10); its holes
- * are cleared by a region in clear polarity (%LPC*%, §4.9.2) right after it. Via pads are part of
- * the island's region and also flashed with a ViaPad aperture at every via centre (§4.8.4), which
+ * are cleared by a region in clear polarity (%LPC*%; LP is §4.9, from memory) right after it. Via pads are part of
+ * the island's region and also flashed with a ViaPad aperture at every via centre (D03; pads as flashes,
+ * §7.2 'bad practices' per physics.md §7.3 [R]), which
  * keeps at least one aperture defined even when there are no vias.
  */
 export function writeGerberCopper(g: BoardGeometry, meta: ArtworkMeta): Artifact {
@@ -77,10 +78,13 @@ export function writeGerberCopper(g: BoardGeometry, meta: ArtworkMeta): Artifact
   return { path: `${fileStem(meta.name)}-copper_top.gbr`, mediaType: MEDIA_TYPE, text: lines.join('\n') + '\n' };
 }
 
+/** The area's outline without repeated points on the 1 nm grid (no zero-length draws, §4.14). */
 function regionOutline(r: Region): Ring | null {
-  if (r.kind === 'rect') return [[r.x[0], r.y[0]], [r.x[1], r.y[0]], [r.x[1], r.y[1]], [r.x[0], r.y[1]]];
-  if (r.kind === 'polygon') return r.points;
-  return null;
+  const ring: Ring | null =
+    r.kind === 'rect' ? [[r.x[0], r.y[0]], [r.x[1], r.y[0]], [r.x[1], r.y[1]], [r.x[0], r.y[1]]] : r.kind === 'polygon' ? r.points : null;
+  if (!ring) return null;
+  const key = (p: Point): string => gerberXY(p);
+  return ring.filter((p, i) => key(p) !== key(ring[(i + ring.length - 1) % ring.length]!));
 }
 
 /**
@@ -91,6 +95,7 @@ function regionOutline(r: Region): Ring | null {
 export function writeGerberProfile(g: BoardGeometry, meta: ArtworkMeta): Artifact | null {
   if (!g.area) return null;
   const lines = header(meta, 'board profile', 'Profile,NP', null);
+  // AperFunction Profile marks the draws that define the board outline (§5.6.10; from memory).
   lines.push('%TA.AperFunction,Profile*%', `%ADD10C,${mm6(PROFILE_STROKE)}*%`, '%TD*%', 'D10*');
   const outline = regionOutline(g.area);
   if (outline) {

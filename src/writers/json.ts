@@ -10,6 +10,7 @@ export interface DesignRecordInput {
   readonly response: ResponseSet;
   readonly geometry: BoardGeometry;
   readonly diagnostics: readonly Diagnostic[];
+  readonly fit: { readonly fits: boolean; readonly margin: number; readonly limitedBy: string; readonly changed: readonly string[] };
   readonly version: string;
 }
 
@@ -71,6 +72,13 @@ export function designRecord(input: DesignRecordInput): unknown {
       s11_db_at_f0: physical.s11DbAtF0,
       band_10db_hz: response.band10dB ? [response.band10dB.low, response.band10dB.high] : null,
     },
+    fit: {
+      fits: input.fit.fits,
+      margin_m: Number.isFinite(input.fit.margin) ? input.fit.margin : null,
+      limited_by: input.fit.limitedBy,
+      changed: input.fit.changed,
+    },
+    drc: input.diagnostics.filter((d) => d.code.startsWith('fab.')).map((d) => ({ code: d.code, where: d.where, message: d.message })),
     diagnostics: input.diagnostics.map((d) => ({ code: d.code, severity: d.severity, where: d.where, message: d.message })),
     defaulted: spec.defaulted,
   };

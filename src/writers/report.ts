@@ -11,6 +11,7 @@ export interface ReportInput {
   readonly response: ResponseSet;
   readonly geometry: BoardGeometry;
   readonly diagnostics: readonly Diagnostic[];
+  readonly fit: { readonly fits: boolean; readonly margin: number; readonly limitedBy: string; readonly changed: readonly string[] };
   readonly version: string;
 }
 
@@ -85,6 +86,14 @@ export function writeReport(input: ReportInput): Artifact {
   );
   out.push('- the load impedance is held constant over the band; a real device changes with frequency.');
   out.push(`- footprint: x ${mm(geometry.bounds.xmin)} to ${mm(geometry.bounds.xmax)} mm, y ${mm(geometry.bounds.ymin)} to ${mm(geometry.bounds.ymax)} mm`);
+  out.push('');
+  out.push('## Placement', '');
+  if (Number.isFinite(input.fit.margin)) {
+    out.push(`- ${input.fit.fits ? 'fits' : 'does not fit'} the allowed space: worst margin ${mm(input.fit.margin)} mm, set by ${input.fit.limitedBy}`);
+    out.push(input.fit.changed.length ? `- changed from the preferred layout to fit: ${input.fit.changed.join(', ')}` : '- the preferred layout fits as it is');
+  } else {
+    out.push('- the spec sets no area or keep-outs');
+  }
   out.push('');
   out.push('## Diagnostics', '');
   if (input.diagnostics.length === 0) out.push('None.');

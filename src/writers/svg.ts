@@ -4,8 +4,7 @@
 import type { Artifact, BoardGeometry, Bounds, Feature, Point, Region, Ring } from '../seams.js';
 import { isEmptyBounds, mergeBounds, ringBounds } from '../geometry/polygon.js';
 import { trimmed } from '../format.js';
-import { mmLabel, nanometres, type ArtworkMeta } from './units.js';
-import { labelHeight } from './dxf.js';
+import { labelHeight, mmLabel, nanometres, type ArtworkMeta } from './units.js';
 
 export type { ArtworkMeta } from './units.js';
 
@@ -166,7 +165,7 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
 
   if (isEmptyBounds(extent)) extent = { xmin: 0, ymin: 0, xmax: 1e-3, ymax: 1e-3 };
   const margin = 2 * h;
-  const footer = (meta.notes.length + 4) * 1.6 * h;
+  const footer = (meta.notes.length + 5) * 1.6 * h;
   const xmin = extent.xmin - margin;
   const xmax = extent.xmax + margin;
   const ymax = extent.ymax + margin + 2 * h; // room for the title
@@ -175,9 +174,12 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
   const height = ymax - ymin;
 
   body.push(`<rect x="${sx(xmin)}" y="${sy(ymax)}" width="${n(width)}" height="${n(height)}" fill="${COLOURS.background}"/>`);
-  // The board: the allowed area when given, else the copper with a small rim.
-  const boardBox = g.area ? regionBounds(g.area) : isEmptyBounds(g.bounds) ? extent : grown(g.bounds, h);
-  body.push(`<rect x="${sx(boardBox.xmin)}" y="${sy(boardBox.ymax)}" width="${n(boardBox.xmax - boardBox.xmin)}" height="${n(boardBox.ymax - boardBox.ymin)}" class="board"/>`);
+  // The board: the allowed area's shape when given, else the copper with a small rim.
+  if (g.area) body.push(regionElement(g.area, 'class="board"'));
+  else {
+    const box = isEmptyBounds(g.bounds) ? extent : grown(g.bounds, h);
+    body.push(`<rect x="${sx(box.xmin)}" y="${sy(box.ymax)}" width="${n(box.xmax - box.xmin)}" height="${n(box.ymax - box.ymin)}" class="board"/>`);
+  }
   if (g.area) body.push(`<g id="area">${regionElement(g.area, 'class="area"')}</g>`);
   if (g.keepouts.length > 0) body.push(`<g id="keepouts">${g.keepouts.map((k) => regionElement(k, 'class="keepout"')).join('')}</g>`);
   body.push(
@@ -189,10 +191,6 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
       return `<circle cx="${sx(v.x)}" cy="${sy(v.y)}" r="${n(r)}" class="drill"/><path d="M${sx(v.x - r)} ${sy(v.y)} L${sx(v.x + r)} ${sy(v.y)} M${sx(v.x)} ${sy(v.y - r)} L${sx(v.x)} ${sy(v.y + r)}" class="drill-cross"/>`;
     });
     body.push(`<g id="vias">${viaSvg.join('')}</g>`);
-    const first = g.vias[0]!;
-    body.push(
-      `<text x="${sx(first.x + first.pad)}" y="${sy(first.y + first.pad)}" class="note">${escapeXml(`${g.vias.length} via${g.vias.length > 1 ? 's' : ''}: drill ${mmLabel(first.drill)} mm, pad ${mmLabel(first.pad)} mm`)}</text>`,
-    );
   }
   body.push(`<g id="dimensions">${dimSvg.join('')}</g>`, `<g id="ports">${portSvg.join('')}</g>`);
 
@@ -203,7 +201,9 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
     `<g id="scale-bar"><rect x="${sx(extent.xmin)}" y="${sy(barY + 0.25 * h)}" width="${n(bar)}" height="${n(0.5 * h)}" class="scale"/>` +
       `<text x="${sx(extent.xmin + bar + 0.5 * h)}" y="${sy(barY - 0.35 * h)}" class="note">${escapeXml(`${mmLabel(bar)} mm`)}</text></g>`,
   );
-  const notes = [`units mm, true scale; tunestrip ${meta.version}`, ...meta.notes];
+  const viaSizes = [...new Set(g.vias.map((v) => `drill ${mmLabel(v.drill)} mm, pad ${mmLabel(v.pad)} mm`))];
+  const viaNote = g.vias.length > 0 ? [`${g.vias.length} via${g.vias.length > 1 ? 's' : ''}: ${viaSizes.join('; ')}`] : [];
+  const notes = [`units mm, true scale; tunestrip ${meta.version}`, ...viaNote, ...meta.notes];
   body.push(
     `<g id="notes">${notes.map((t, i) => `<text x="${sx(extent.xmin)}" y="${sy(barY - (i + 1.6) * 1.6 * h)}" class="note">${escapeXml(t)}</text>`).join('')}</g>`,
     `<text x="${sx(xmin + margin)}" y="${sy(ymax - 1.6 * h)}" class="title">${escapeXml(meta.name)}</text>`,

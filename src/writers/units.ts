@@ -1,7 +1,8 @@
 // Board lengths at the writer edge: metres inside, millimetres in files. Every coordinate is
 // rounded once, to the nanometre, and only then formatted.
 import { fixed, trimmed } from '../format.js';
-import type { Point } from '../seams.js';
+import type { Bounds, Point } from '../seams.js';
+import { isEmptyBounds } from '../geometry/polygon.js';
 
 /** Whole nanometres from metres; throws on a non-finite value so no NaN reaches a file. */
 export function nanometres(metres: number): number {
@@ -49,4 +50,10 @@ export interface ArtworkMeta {
   readonly notes: readonly string[];
   /** Extra dimension lines to draw (board metres), on top of each feature's length and width. */
   readonly dimensions?: readonly { readonly label: string; readonly from: Point; readonly to: Point }[];
+}
+
+/** Text height for labels: 1/40 of the larger copper extent, between 0.25 mm and 3 mm (our choice). */
+export function labelHeight(b: Bounds): number {
+  const span = isEmptyBounds(b) ? 0 : Math.max(b.xmax - b.xmin, b.ymax - b.ymin);
+  return Math.min(3e-3, Math.max(0.25e-3, Math.round((span / 40) * 1e5) / 1e5));
 }

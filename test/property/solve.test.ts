@@ -60,7 +60,8 @@ const reachableProblem = fc
   })
   .filter((p) => p.load.re > 0 && isFiniteComplex(p.load));
 
-let allowanceUsed = 0;
+/** Residuals (solver's or ABCD re-check) ≥ 1e-9, accepted only under the rounding allowance. */
+let overOneNano = 0;
 
 /**
  * Residual allowed for a solution: 1e-9, or more where the problem is so ill-conditioned that rounding
@@ -77,7 +78,6 @@ function allowance(p: StubProblem, s: StubSolution): number {
   const gT = div(complex(p.lineZ0), p.target).re;
   const dTheta = 2 * Math.PI * 4 * 2 ** -53;
   const bound = (dTheta * (onePlusY2 + count * ys * (1 + each * each))) / (2 * gT);
-  if (bound > 1e-9) allowanceUsed += 1;
   return Math.max(1e-9, bound);
 }
 
@@ -94,10 +94,13 @@ function problemsOf(p: StubProblem, r: IdealSolution): string[] {
     check(s.stubWl >= 0 && s.stubWl < 0.5, `${at}: stub length outside [0, 0.5)`);
     check(!Object.is(s.stubWl, -0) && !Object.is(s.positionWl, -0), `${at}: -0`);
     check(s.style === p.style, `${at}: style`);
-    const allowed = allowance(p, s);
-    check(s.residualGamma < allowed, `${at}: residual ${s.residualGamma} ≥ ${allowed}`);
     const byAbcd = mismatch(zinByAbcd(p, s), p.target);
-    check(byAbcd < allowed, `${at}: ABCD re-check ${byAbcd} ≥ ${allowed}`);
+    if (s.residualGamma >= 1e-9 || byAbcd >= 1e-9) {
+      overOneNano += 1;
+      const allowed = allowance(p, s);
+      check(s.residualGamma < allowed, `${at}: residual ${s.residualGamma} ≥ ${allowed}`);
+      check(byAbcd < allowed, `${at}: ABCD re-check ${byAbcd} ≥ ${allowed}`);
+    }
   });
   for (let i = 1; i < r.solutions.length; i++) {
     const [a, b] = [r.solutions[i - 1]!, r.solutions[i]!];
@@ -112,6 +115,7 @@ function expectWellFormed(p: StubProblem, r: IdealSolution): void {
 
 describe('solveSingleStub properties (fast-check, seeded)', () => {
   it('reachable target: four solutions (2 positions × open/short), all matched, lengths in [0, ½)', () => {
+    overOneNano = 0;
     fc.assert(
       fc.property(reachableProblem, (p) => {
         const r = solveSingleStub(p);
@@ -138,10 +142,10 @@ describe('solveSingleStub properties (fast-check, seeded)', () => {
           expect(terms).toEqual(['open', 'short']);
         }
       }),
-      { seed: SEED, numRuns: 2000 },
+      { seed: SEED, numRuns: 1500 },
     );
-    // The 1e-9 requirement itself holds for all but rare ill-conditioned draws (|Γ_L| → 1 with g_T → 1/S).
-    expect(allowanceUsed).toBeLessThan(80);
+    // The allowance is a fallback for the extreme edge only: here every residual meets 1e-9 itself.
+    expect(overOneNano).toBe(0);
   });
 
   it('extreme chart edge (VSWR 1e5 … 1e9): finite, in range, residual within the rounding allowance', () => {

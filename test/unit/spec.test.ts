@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { TunestripError } from '../../src/diagnostics.js';
 import { listFields, parseFabPreset, parseSpec, parseSubstratePreset, type Presets } from '../../src/spec/parse.js';
+import { closest, editDistance } from '../../src/spec/suggest.js';
 
 const root = join(import.meta.dirname, '..', '..');
 const yamlFiles = (dir: string): Record<string, string> =>
@@ -160,6 +161,15 @@ describe('reading the file', () => {
     expect(spec.load).toEqual({ re: 22, im: -31 });
     expect(spec.area).toEqual({ kind: 'polygon', points: [[0, 0], [0.01, 0], [0, 0.01]] });
   });
+  it('stores a polygon without a repeated closing point', () => {
+    const { spec } = parseSpec(`${minimal}area:\n  polygon: [[0, 0], [10 mm, 0], [0, 10 mm], [0, 0]]\n`, presets);
+    expect(spec.area).toEqual({ kind: 'polygon', points: [[0, 0], [0.01, 0], [0, 0.01]] });
+  });
+  it('reads impedances in the trade notation from YAML plain scalars', () => {
+    expect(parseSpec(minimal.replace('30-j10', '-j5'), presets).spec.load).toEqual({ re: 0, im: -5 });
+    expect(parseSpec(minimal.replace('30-j10', '12.5 + j4 ohm'), presets).spec.load).toEqual({ re: 12.5, im: 4 });
+    expect(parseSpec(`${minimal}target: 75\n`, presets).spec.target).toEqual({ re: 75, im: 0 });
+  });
   it('accepts a byte-order mark and CRLF line ends', () => {
     const { spec } = parseSpec(`\ufeff${minimal.replace(/\n/g, '\r\n')}`, presets);
     expect(spec.frequency).toBe(2.4e9);
@@ -221,5 +231,26 @@ describe('bad-spec corpus', () => {
     // One line, naming the field (or file position) first.
     expect(error.message).not.toMatch(/[\n\r]/);
     expect(error.message.startsWith(`${expected.where}: `)).toBe(true);
+  });
+});
+
+describe('suggestions', () => {
+  it('edit distance matches the textbook example', () => {
+    // kitten → sitting is 3 edits (Levenshtein distance; the classic example in Wagner & Fischer-style
+    // treatments, from memory).
+    expect(editDistance('kitten', 'sitting')).toBe(3);
+    // A swap of neighbours counts once (optimal string alignment; Damerau 1964, from memory).
+    expect(editDistance('opne', 'open')).toBe(1);
+    expect(editDistance('', 'abc')).toBe(3);
+  });
+  it('suggests only near words', () => {
+    expect(closest('frequncy', ['name', 'frequency', 'load'])).toBe('frequency');
+    expect(closest('colour', ['name', 'frequency', 'load'])).toBeUndefined();
+  });
+  it('warns about a frequency without a unit', () => {
+    const { spec, diagnostics } = parseSpec(minimal.replace('2.4 GHz', '5.8'), presets);
+    expect(spec.frequency).toBe(5.8);
+    expect(diagnostics.map((d) => [d.code, d.where, d.severity])).toEqual([['spec.bare-number', 'frequency', 'warning']]);
+    expect(parseSpec(minimal.replace('2.4 GHz', '2.4e9'), presets).diagnostics).toEqual([]);
   });
 });

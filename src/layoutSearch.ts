@@ -1,0 +1,102 @@
+// Layout variants in order of electrical preference, each laid out and checked against the space
+// the spec allows. When the preferred layout does not fit, the first variant that does is used,
+// and what changed is said.
+import type { BoardGeometry, IdealSolution, PhysicalDesign, Spec, StubStyle } from './seams.js';
+import { solveSingleStub } from './solve/index.js';
+import { planJunction, realizeAll, type JunctionPlan, type SizedLines } from './physical/realize.js';
+import { layoutStubMatch, checkFit, type FitReport, type StubLayoutInput } from './geometry/index.js';
+
+export type Fold = 'straight';
+
+export interface LayoutVariant {
+  readonly style: StubStyle;
+  readonly junction: JunctionPlan;
+  readonly ideal: IdealSolution;
+  readonly physical: PhysicalDesign;
+  readonly fold: Fold;
+  readonly geometry: BoardGeometry;
+  readonly fit: FitReport;
+  /** How this variant differs from the preferred one, in words; empty for the preferred one. */
+  readonly changed: readonly string[];
+}
+
+interface Electrical {
+  readonly style: StubStyle;
+  readonly junction: JunctionPlan;
+  readonly ideal: IdealSolution;
+  readonly designs: readonly PhysicalDesign[];
+}
+
+const FOLDS: readonly Fold[] = ['straight'];
+
+/** Whether the spec constrains the copper's position at all. */
+export const hasSpaceLimits = (spec: Spec): boolean => spec.area !== undefined || spec.keepouts.length > 0;
+
+function electrical(spec: Spec, lines: SizedLines, style: StubStyle, explore: boolean): Electrical {
+  const stubCount = style === 'balanced' ? 2 : 1;
+  const junction = planJunction(spec, lines, stubCount);
+  const ideal = solveSingleStub({ load: spec.load, target: junction.targetAtJunction, lineZ0: spec.lineZ0, stubZ0: spec.stubZ0, style });
+  const plan = ideal.alreadyMatched ? planJunction(spec, lines, 0) : junction;
+  const own = realizeAll(spec, lines, plan, ideal);
+  const others = spec.stub === 'best' || !explore ? [] : realizeAll(spec, lines, plan, ideal, [spec.stub === 'open' ? 'short' : 'open']);
+  return { style, junction: plan, ideal, designs: [...own, ...others] };
+}
+
+/**
+ * Every variant, most preferred first: the spec's own choice, then the other branch, the other
+ * termination, the other side, the other style (single ↔ balanced) and finally folding. Only the
+ * spec's own style is tried when the spec sets no area or keep-outs.
+ */
+export function layoutVariants(spec: Spec, lines: SizedLines, explore = hasSpaceLimits(spec)): LayoutVariant[] {
+  const styles: StubStyle[] = explore ? [spec.style, spec.style === 'single' ? 'balanced' : 'single'] : [spec.style];
+  const byStyle = styles.map((style) => electrical(spec, lines, style, explore));
+  const preferred = byStyle[0]?.designs[0];
+  const variants: LayoutVariant[] = [];
+  for (const fold of explore ? FOLDS : FOLDS.slice(0, 1)) {
+    for (const e of byStyle) {
+      const sides: ('left' | 'right')[] =
+        e.style === 'balanced' ? ['left'] : explore ? [spec.stubSide, spec.stubSide === 'left' ? 'right' : 'left'] : [spec.stubSide];
+      for (const side of sides) {
+        for (const d of explore ? e.designs : e.designs.slice(0, 1)) {
+          const physical: PhysicalDesign = e.style === 'balanced' || d.copper.stubCount === 0 ? d : { ...d, stubSides: [side] };
+          const geometry = layoutStubMatch(layoutInputOf(spec, physical));
+          const fit = checkFit(geometry, spec.area, spec.keepouts, spec.clearance);
+          variants.push({ style: e.style, junction: e.junction, ideal: e.ideal, physical, fold, geometry, fit, changed: preferred ? differences(preferred, physical, fold) : [] });
+        }
+      }
+    }
+  }
+  return variants;
+}
+
+function differences(a: PhysicalDesign, b: PhysicalDesign, fold: Fold): string[] {
+  const out: string[] = [];
+  const sa = a.solution;
+  const sb = b.solution;
+  if (sa.style !== sb.style) out.push(`${sb.style} stubs instead of ${sa.style}`);
+  if (sa.termination !== sb.termination) out.push(`${sb.termination}-circuit stub instead of ${sa.termination}`);
+  if (sa.branch !== sb.branch && sa.style === sb.style) out.push(`branch ${sb.branch} instead of ${sa.branch}`);
+  if (sb.style === 'single' && sa.style === 'single' && a.stubSides[0] !== b.stubSides[0]) out.push(`stub on the ${b.stubSides[0]} instead of the ${a.stubSides[0]}`);
+  if (fold !== 'straight') out.push(`${fold} stub`);
+  return out;
+}
+
+/** The copper dimensions the physical stage chose, handed to the geometry stage. */
+export function layoutInputOf(spec: Spec, physical: PhysicalDesign): StubLayoutInput {
+  const c = physical.copper;
+  return {
+    seriesWidth: c.seriesWidth,
+    seriesLength: c.seriesLength,
+    leadLength: c.leadLength,
+    stubWidth: c.stubWidth,
+    stubLength: c.stubLength,
+    stubSides: physical.stubSides,
+    termination: c.termination,
+    ...(c.vias ? { via: { drill: c.vias.drill, pad: c.vias.pad, count: c.vias.count, pitch: viaPitch(spec) } } : {}),
+    ...(spec.area ? { area: spec.area } : {}),
+    keepouts: spec.keepouts,
+  };
+}
+
+/** Vias in a row sit one pad plus the minimum space apart (common practice, no source). */
+const viaPitch = (spec: Spec): number => spec.fab.viaPad + spec.fab.minSpace;
