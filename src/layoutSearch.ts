@@ -4,9 +4,11 @@
 import type { BoardGeometry, IdealSolution, PhysicalDesign, Spec, StubStyle } from './seams.js';
 import { solveSingleStub } from './solve/index.js';
 import { planJunction, realizeAll, type JunctionPlan, type SizedLines } from './physical/realize.js';
-import { layoutStubMatch, checkFit, type FitReport, type StubLayoutInput } from './geometry/index.js';
+import { layoutStubMatch, checkFit, foldFits, placeGeometry, type FitReport, type StubFold, type StubLayoutInput } from './geometry/index.js';
+import { mitreDouvilleJames } from './physical/discontinuities/index.js';
 
-export type Fold = 'straight';
+/** How the stub is drawn: straight, or folded once (L) or twice (U) with its bends towards the load or the source. */
+export type Fold = 'straight' | 'L-source' | 'L-load' | 'U-source' | 'U-load';
 
 export interface LayoutVariant {
   readonly style: StubStyle;
@@ -27,7 +29,15 @@ interface Electrical {
   readonly designs: readonly PhysicalDesign[];
 }
 
-const FOLDS: readonly Fold[] = ['straight'];
+/** Straight first; then an L, then a U, each with the bend towards the source and then the load (our preference order). */
+const FOLDS: readonly Fold[] = ['straight', 'L-source', 'L-load', 'U-source', 'U-load'];
+
+const FOLD_WORDS: Readonly<Record<Exclude<Fold, 'straight'>, string>> = {
+  'L-source': 'L-folded stub (bend towards the source)',
+  'L-load': 'L-folded stub (bend towards the load)',
+  'U-source': 'U-folded stub (bends towards the source)',
+  'U-load': 'U-folded stub (bends towards the load)',
+};
 
 /** Whether the spec constrains the copper's position at all. */
 export const hasSpaceLimits = (spec: Spec): boolean => spec.area !== undefined || spec.keepouts.length > 0;
@@ -59,7 +69,10 @@ export function layoutVariants(spec: Spec, lines: SizedLines, explore = hasSpace
       for (const side of sides) {
         for (const d of explore ? e.designs : e.designs.slice(0, 1)) {
           const physical: PhysicalDesign = e.style === 'balanced' || d.copper.stubCount === 0 ? d : { ...d, stubSides: [side] };
-          const geometry = layoutStubMatch(layoutInputOf(spec, physical));
+          const input = layoutInputOf(spec, physical, fold);
+          // A fold that cannot be built at this stub length (too short to fold) is not a variant.
+          if (input.fold && !foldFits(input)) continue;
+          const geometry = placeGeometry(layoutStubMatch(input), spec.place);
           const fit = checkFit(geometry, spec.area, spec.keepouts, spec.clearance);
           variants.push({ style: e.style, junction: e.junction, ideal: e.ideal, physical, fold, geometry, fit, changed: preferred ? differences(preferred, physical, fold) : [] });
         }
@@ -77,13 +90,14 @@ function differences(a: PhysicalDesign, b: PhysicalDesign, fold: Fold): string[]
   if (sa.termination !== sb.termination) out.push(`${sb.termination}-circuit stub instead of ${sa.termination}`);
   if (sa.branch !== sb.branch && sa.style === sb.style) out.push(`branch ${sb.branch} instead of ${sa.branch}`);
   if (sb.style === 'single' && sa.style === 'single' && a.stubSides[0] !== b.stubSides[0]) out.push(`stub on the ${b.stubSides[0]} instead of the ${a.stubSides[0]}`);
-  if (fold !== 'straight') out.push(`${fold} stub`);
+  if (fold !== 'straight') out.push(FOLD_WORDS[fold]);
   return out;
 }
 
 /** The copper dimensions the physical stage chose, handed to the geometry stage. */
-export function layoutInputOf(spec: Spec, physical: PhysicalDesign): StubLayoutInput {
+export function layoutInputOf(spec: Spec, physical: PhysicalDesign, fold: Fold = 'straight'): StubLayoutInput {
   const c = physical.copper;
+  const folded = foldOf(spec, physical, fold);
   return {
     seriesWidth: c.seriesWidth,
     seriesLength: c.seriesLength,
@@ -93,9 +107,23 @@ export function layoutInputOf(spec: Spec, physical: PhysicalDesign): StubLayoutI
     stubSides: physical.stubSides,
     termination: c.termination,
     ...(c.vias ? { via: { drill: c.vias.drill, pad: c.vias.pad, count: c.vias.count, pitch: viaPitch(spec) } } : {}),
+    ...(folded ? { fold: folded } : {}),
     ...(spec.area ? { area: spec.area } : {}),
     keepouts: spec.keepouts,
   };
+}
+
+/**
+ * The bend geometry of a folded stub: each corner mitred per Douville & James (1978), the cut from
+ * mitreDouvilleJames (physics.md §4.3 [M]); the fold keeps max(2 × stub width, fab.min_space) from
+ * the series line and between a U's arms, so coupling stays small and the space rule holds (common
+ * practice, no source: two line widths between coupled-free parallel lines).
+ */
+function foldOf(spec: Spec, physical: PhysicalDesign, fold: Fold): StubFold | undefined {
+  if (fold === 'straight' || physical.copper.stubCount === 0) return undefined;
+  const w = physical.copper.stubWidth;
+  const [kind, toward] = fold.split('-') as ['L' | 'U', 'load' | 'source'];
+  return { kind, toward, mitreCut: mitreDouvilleJames(w, spec.substrate.height).edgeCut, clearance: Math.max(2 * w, spec.fab.minSpace) };
 }
 
 /** Vias in a row sit one pad plus the minimum space apart (common practice, no source). */

@@ -37,6 +37,14 @@ export type Region =
   | { readonly kind: 'polygon'; readonly points: readonly Point[] }
   | { readonly kind: 'circle'; readonly center: Point; readonly radius: number };
 
+/** Local section frame → board frame: p_board = (x, y) + R(rotationDeg) · (mirror ? (px, −py) : p). */
+export interface Placement {
+  readonly x: number;
+  readonly y: number;
+  readonly rotationDeg: number;
+  readonly mirror: boolean;
+}
+
 export type StubChoice = 'open' | 'short' | 'best';
 export type StubStyle = 'single' | 'balanced';
 export type Termination = 'open' | 'short';
@@ -55,6 +63,8 @@ export interface Spec {
   readonly fab: FabRules;
   /** Straight line lengths at the load and source ports (m). */
   readonly leads: { readonly load: number; readonly source: number };
+  /** Where the section lands on the board (m, degrees): mirror about its own x axis, rotate counter-clockwise, then move the load plane centre to (x, y). */
+  readonly place: Placement;
   readonly area?: Region;
   readonly keepouts: readonly Region[];
   readonly clearance: number;
@@ -214,11 +224,15 @@ export interface Feature {
   /** Stable id: `series`, `stub`, `stub-2`, `lead-load`, `lead-source`, `via-1` … */
   readonly id: string;
   readonly kind: 'line' | 'stub' | 'lead' | 'pad';
-  /** Axis-aligned rectangle of the feature before union (m). */
+  /** Axis-aligned rectangle of the feature before union, in the section's own frame, before placement (m). */
   readonly rect: { readonly xmin: number; readonly ymin: number; readonly xmax: number; readonly ymax: number };
   /** Length along the feature's axis and its width (m), for dimensions. */
   readonly length: number;
   readonly width: number;
+  /** The feature's copper before union in board coordinates (after folding and placement), counter-clockwise. */
+  readonly outline?: Ring;
+  /** Centre-line from start to end in board coordinates, for dimensions (lines, leads, stub segments). */
+  readonly path?: readonly Point[];
 }
 
 export interface Bounds {
@@ -236,6 +250,8 @@ export interface BoardGeometry {
   readonly area?: Region;
   readonly keepouts: readonly Region[];
   readonly bounds: Bounds;
+  /** The transform from the section's own frame (feature rects) to the board frame; absent = identity. */
+  readonly placement?: Placement;
 }
 
 // ───────────────────────────── writers ─────────────────────────────

@@ -6,7 +6,7 @@ import { add, complex, div, inv, scale, type Complex } from '../math/complex.js'
 import { cascade, inputImpedanceOf, lineAbcd, shuntAdmittanceAbcd, transformerAbcd, type Abcd } from '../math/network.js';
 import type { MatchCopper, Substrate } from '../seams.js';
 import { analyseMicrostrip, propagationConstant } from '../physical/microstrip/index.js';
-import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceGoldfarbPucel, viaResistance } from '../physical/discontinuities/index.js';
+import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceGoldfarbPucel, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
 import { inputImpedance, openStubAdmittance, shortStubAdmittance } from '../math/lines.js';
 
 /** Which discontinuity models take part; all on for the physical design, all off gives plain lines. */
@@ -25,14 +25,8 @@ const CROSS_STUB_PLANE_SHIFT = 1 / 3;
 /** Plating thickness assumed in the via barrel for its resistance (common practice, no source: 25 µm). */
 const VIA_PLATING = 25e-6;
 
-export interface JunctionView {
-  readonly da: number;
-  readonly db: number;
-  readonly d2: number;
-  readonly n2a: number;
-  readonly n2b: number;
-  readonly susceptance: number;
-}
+/** The junction's reference planes, transformer ratios and susceptance, as the network uses them. */
+export type JunctionView = Omit<TJunction, 'warnings'>;
 
 export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency: number): JunctionView {
   const main = analyseMicrostrip(copper.seriesWidth, substrate, frequency);

@@ -6,11 +6,12 @@
 // Measured values come from copper on the 1 nm board grid (snapping moves a distance by up to
 // √2 nm), so a rule counts as broken only when the value is more than RULE_TOLERANCE below its
 // limit; nothing is clamped.
-import type { BoardGeometry, CopperIsland, FabRules, Feature, Point, Region } from '../seams.js';
+import type { BoardGeometry, CopperIsland, FabRules, Feature, Point, Region, Ring } from '../seams.js';
 import { diagnostic, type Diagnostic } from '../diagnostics.js';
 import { fixed } from '../format.js';
-import { circlePolygon, rectRing } from './polygon.js';
-import { inCopper, regionMargin, segmentSegment, type CopperShape } from './fit.js';
+import { rectRing } from './polygon.js';
+import { placementMap } from './place.js';
+import { distanceToRing, inCopper, regionMargin, segmentSegment, type CopperShape } from './fit.js';
 
 /** Two grid steps: a gap is broken only when it is this much (m) or more below the limit. */
 export const RULE_TOLERANCE = 2e-9;
@@ -19,6 +20,7 @@ export const RULE_TOLERANCE = 2e-9;
 const FACING_COS = Math.cos(Math.PI / 4);
 
 const mm3 = (metres: number): string => fixed(metres * 1e3, 3);
+const compareText = (a: string, b: string): number => (a < b ? -1 : a > b ? 1 : 0);
 const below = (value: number, limit: number): boolean => value < limit - RULE_TOLERANCE;
 
 export function checkDesignRules(g: BoardGeometry, fab: FabRules, area?: Region): Diagnostic[] {
@@ -55,11 +57,10 @@ function featureAt(p: Point, g: BoardGeometry, fallback: string): string {
     if (d <= 2e-6 && d < best.d) best = { d, id: `via-pad-${i + 1}` };
   });
   if (best.d < Infinity) return best.id;
-  for (const f of g.features) {
-    if (f.kind === 'pad') continue;
-    const r = f.rect;
-    const d = Math.hypot(Math.max(r.xmin - p[0], 0, p[0] - r.xmax), Math.max(r.ymin - p[1], 0, p[1] - r.ymax));
-    if (d < best.d) best = { d, id: f.id };
+  for (const piece of pieces(g)) {
+    if (piece.id.startsWith('via-pad-')) continue;
+    const d = inCopper(p, piece.shape) ? 0 : distanceToRing(p, piece.shape.outline);
+    if (d < best.d) best = { d, id: piece.id };
   }
   return best.id;
 }
@@ -86,6 +87,41 @@ function edgesOfIsland(island: CopperIsland): Edge[] {
 
 const adjacent = (e: Edge, f: Edge): boolean =>
   e.ring === f.ring && (e.index === f.index || (e.index + 1) % e.size === f.index || (f.index + 1) % f.size === e.index);
+
+/**
+ * For antiparallel edges, the points facing each other in the middle of their common span: the
+ * closest points of parallel edges are not unique, and an end point can sit on a neighbouring
+ * feature (e.g. where a folded stub's arm meets the line), which would name the wrong feature.
+ */
+function facingMiddle(e: Edge, f: Edge): [Point, Point] | null {
+  const dx = e.b[0] - e.a[0];
+  const dy = e.b[1] - e.a[1];
+  const len2 = dx * dx + dy * dy;
+  const cross = e.n[0] * f.n[1] - e.n[1] * f.n[0];
+  if (len2 === 0 || Math.abs(cross) > 1e-9) return null;
+  const along = (p: Point): number => ((p[0] - e.a[0]) * dx + (p[1] - e.a[1]) * dy) / len2;
+  const lo = Math.max(0, Math.min(along(f.a), along(f.b)));
+  const hi = Math.min(1, Math.max(along(f.a), along(f.b)));
+  if (!(lo <= hi)) return null;
+  const t = (lo + hi) / 2;
+  const p: Point = [e.a[0] + t * dx, e.a[1] + t * dy];
+  // Its foot on f's line, offset by the gap along e's outward normal.
+  const gap = (f.a[0] - p[0]) * e.n[0] + (f.a[1] - p[1]) * e.n[1];
+  return [p, [p[0] + gap * e.n[0], p[1] + gap * e.n[1]]];
+}
+
+/**
+ * Two overlapping pads make one land; the V at their waist is not a gap between separate copper
+ * (their holes are checked by the drill-to-drill rule instead).
+ */
+function atWaistOfMergedPads(p: Point, q: Point, g: BoardGeometry): boolean {
+  const a = featureAt(p, g, '');
+  const b = featureAt(q, g, '');
+  const padIndex = (id: string): number => (id.startsWith('via-pad-') ? Number(id.slice('via-pad-'.length)) - 1 : -1);
+  const va = g.vias[padIndex(a)];
+  const vb = g.vias[padIndex(b)];
+  return va !== undefined && vb !== undefined && va !== vb && Math.hypot(va.x - vb.x, va.y - vb.y) < (va.pad + vb.pad) / 2 + RULE_TOLERANCE;
+}
 
 interface Gap {
   readonly first: string;
@@ -125,11 +161,13 @@ function spaces(g: BoardGeometry, fab: FabRules): Diagnostic[] {
         if (adjacent(e, f) || e.n[0] * f.n[0] + e.n[1] * f.n[1] > -FACING_COS) continue;
         const s = segmentSegment(e.a, e.b, f.a, f.b);
         if (!(s.distance < limit) || s.distance === 0) continue;
-        const dx = s.q[0] - s.p[0];
-        const dy = s.q[1] - s.p[1];
+        const [p, q] = facingMiddle(e, f) ?? [s.p, s.q];
+        const dx = q[0] - p[0];
+        const dy = q[1] - p[1];
         const faces = e.n[0] * dx + e.n[1] * dy > 0 && -(f.n[0] * dx + f.n[1] * dy) > 0;
-        const mid: Point = [(s.p[0] + s.q[0]) / 2, (s.p[1] + s.q[1]) / 2];
-        if (faces && !inCopper(mid, island)) note(s.p, s.q, s.distance, [island.id, island.id]);
+        const mid: Point = [(p[0] + q[0]) / 2, (p[1] + q[1]) / 2];
+        if (!faces || inCopper(mid, island) || atWaistOfMergedPads(p, q, g)) continue;
+        note(p, q, s.distance, [island.id, island.id]);
       }
   });
 
@@ -141,12 +179,14 @@ function spaces(g: BoardGeometry, fab: FabRules): Diagnostic[] {
       const a = g.vias[i]!;
       const b = g.vias[j]!;
       const centres = Math.hypot(a.x - b.x, a.y - b.y);
-      if (centres > (a.pad + b.pad) / 2) continue;
+      if (centres > (a.pad + b.pad) / 2 + RULE_TOLERANCE) continue;
       const web = centres - (a.drill + b.drill) / 2;
       if (web < limit) found.set(`drill|via-${i + 1}|via-${j + 1}`, { first: `via-${i + 1}`, second: `via-${j + 1}`, gap: web, what: 'drill-to-drill space' });
     }
 
-  return [...found.values()].map(({ first, second, gap, what }) => {
+  // Stable order whatever the edge order: by the features named, then by the kind of space.
+  const byNames = (a: Gap, b: Gap): number => compareText(a.first, b.first) || compareText(a.second, b.second) || compareText(a.what, b.what);
+  return [...found.values()].sort(byNames).map(({ first, second, gap, what }) => {
     const where = first === second ? first : `${first} to ${second}`;
     return diagnostic('fab.min-space', first, `${where}: ${what} ${mm3(gap)} mm below fab.min_space ${mm3(fab.minSpace)} mm`);
   });
@@ -159,13 +199,18 @@ interface Piece {
   readonly shape: CopperShape;
 }
 
-/** Copper by feature (the rectangles and pad polygons the islands are the union of); islands when there are no features. */
+/**
+ * Copper by feature: each feature's own outline before union (board coordinates), or its rectangle
+ * moved by the placement when it has none; islands when there are no features.
+ * Features without area are not drawn and are skipped.
+ */
 function pieces(g: BoardGeometry): Piece[] {
   if (g.features.length === 0) return g.copper.map((c) => ({ id: c.id, shape: c }));
-  const rectPiece = (f: Feature): Piece => ({ id: f.id, shape: { outline: rectRing(f.rect.xmin, f.rect.ymin, f.rect.xmax, f.rect.ymax), holes: [] } });
-  const drawn = g.features.filter((f) => f.kind !== 'pad' && f.rect.xmax > f.rect.xmin && f.rect.ymax > f.rect.ymin).map(rectPiece);
-  const pads = g.vias.map((v, i) => ({ id: `via-pad-${i + 1}`, shape: { outline: circlePolygon([v.x, v.y], v.pad / 2), holes: [] } }));
-  return [...drawn, ...pads];
+  const drawn = (f: Feature): boolean => f.rect.xmax > f.rect.xmin && f.rect.ymax > f.rect.ymin;
+  // A rectangle is in the section's frame: move it onto the board (orientation does not matter here).
+  const toBoard = g.placement ? placementMap(g.placement) : (p: Point): Point => p;
+  const outlineOf = (f: Feature): Ring => f.outline ?? rectRing(f.rect.xmin, f.rect.ymin, f.rect.xmax, f.rect.ymax).map(toBoard);
+  return g.features.filter(drawn).map((f) => ({ id: f.id, shape: { outline: outlineOf(f), holes: [] } }));
 }
 
 function copperToEdge(g: BoardGeometry, fab: FabRules, area: Region): Diagnostic[] {

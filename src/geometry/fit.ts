@@ -177,20 +177,20 @@ function nearestFeature(p: Point, b: Boundary): { readonly distance: number; rea
  */
 type Row = readonly [number, number, number, number];
 
-function det3(m: readonly (readonly [number, number, number])[]): number {
-  const [a, b, c] = m as [[number, number, number], [number, number, number], [number, number, number]];
-  return a[0] * (b[1] * c[2] - b[2] * c[1]) - a[1] * (b[0] * c[2] - b[2] * c[0]) + a[2] * (b[0] * c[1] - b[1] * c[0]);
-}
+const det3 = (a0: number, a1: number, a2: number, b0: number, b1: number, b2: number, c0: number, c1: number, c2: number): number =>
+  a0 * (b1 * c2 - b2 * c1) - a1 * (b0 * c2 - b2 * c0) + a2 * (b0 * c1 - b1 * c0);
 
 /** Cramer's rule for three rows; null when singular. */
 function solve3(r: readonly [Row, Row, Row]): [number, number, number] | null {
-  const m = r.map((x) => [x[0], x[1], x[2]] as [number, number, number]);
-  const rhs = r.map((x) => x[3]);
-  const d = det3(m);
-  const scale = Math.max(...m.flat().map(Math.abs));
+  const [[a0, a1, a2, ad], [b0, b1, b2, bd], [c0, c1, c2, cd]] = r;
+  const d = det3(a0, a1, a2, b0, b1, b2, c0, c1, c2);
+  const scale = Math.max(Math.abs(a0), Math.abs(a1), Math.abs(a2), Math.abs(b0), Math.abs(b1), Math.abs(b2), Math.abs(c0), Math.abs(c1), Math.abs(c2));
   if (!(Math.abs(d) > 1e-12 * scale * scale * scale)) return null;
-  const col = (k: number): [number, number, number][] => m.map((row, i) => row.map((v, j) => (j === k ? rhs[i]! : v)) as [number, number, number]);
-  return [det3(col(0)) / d, det3(col(1)) / d, det3(col(2)) / d];
+  return [
+    det3(ad, a1, a2, bd, b1, b2, cd, c1, c2) / d,
+    det3(a0, ad, a2, b0, bd, b2, c0, cd, c2) / d,
+    det3(a0, a1, ad, b0, b1, bd, c0, c1, cd) / d,
+  ];
 }
 
 /** Two linear rows and one quadratic |p − v|² = t²: the line of solutions of the rows cut by the quadratic. */
@@ -234,14 +234,16 @@ function featuresOf(ring: Ring): EquiFeature[] {
   return out;
 }
 
+const signSets = (k: number): number[][] => (k === 0 ? [[]] : signSets(k - 1).flatMap((s) => [[...s, 1], [...s, -1]]));
+const SIGN_SETS = [0, 1, 2, 3].map(signSets);
+
 /** Points equidistant from every feature in `fs`, also meeting `extra` rows (e.g. "on this copper edge's line"). */
 function equidistantPoints(fs: readonly EquiFeature[], extra: readonly Row[]): Point[] {
   const lines = fs.filter((f): f is Extract<EquiFeature, { kind: 'line' }> => f.kind === 'line').map((f) => f.line);
   const points = fs.filter((f): f is Extract<EquiFeature, { kind: 'point' }> => f.kind === 'point').map((f) => f.v);
   const out: Point[] = [];
   // Signs: which side of each line the point lies on; the first line's sign is fixed by symmetry when t is free.
-  const signSets = (k: number): number[][] => (k === 0 ? [[]] : signSets(k - 1).flatMap((s) => [[...s, 1], [...s, -1]]));
-  for (const signs of signSets(lines.length)) {
+  for (const signs of SIGN_SETS[lines.length] ?? []) {
     const rows: Row[] = [...extra, ...lines.map((l, i) => [l.n[0], l.n[1], -signs[i]!, l.c] as Row)];
     // Two points' distances agree on their perpendicular bisector: a row without t.
     const [v0, ...rest] = points;
@@ -293,8 +295,10 @@ function polygonMargin(shape: CopperShape, b: Boundary, allowedInside: boolean):
     // Copper vertices.
     for (const r of copperRings) r.forEach(consider);
     const features = featuresOf(ring);
-    // Points of copper edges equidistant from two boundary features.
-    for (const [a, c] of copperEdges) {
+    // Points of copper edges equidistant from two boundary features. An edge that neither starts
+    // nor ends on the forbidden side and meets no boundary edge lies wholly on the allowed side.
+    const reaches = ([a, c]: [Point, Point]): boolean => forbidden(a) || forbidden(c) || boundaryEdges.some(([p, q]) => segmentsIntersect(a, c, p, q));
+    for (const [a, c] of copperEdges.filter(reaches)) {
       const ex = c[0] - a[0];
       const ey = c[1] - a[1];
       const len2 = ex * ex + ey * ey;

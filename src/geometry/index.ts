@@ -1,5 +1,6 @@
 // Copper geometry: polygons, union into islands, and the stub-match layout.
-export { layoutStubMatch, type StubLayoutInput } from './layout.js';
+export { layoutStubMatch, planFold, foldFits, type StubLayoutInput, type StubFold, type FoldPlan } from './layout.js';
+export { placeGeometry, placementMap, placedDirection, normaliseDegrees, isIdentityPlacement, IDENTITY_PLACEMENT } from './place.js';
 export {
   GRID,
   snap,
@@ -21,4 +22,6 @@ export {
 } from './polygon.js';
 export { unionRings, type UnionIsland } from './union.js';
 export { checkFit, distanceToRing, areaSlack, type FitReport } from './fit.js';
-export { checkDesignRules } from './rules.js';
+export { checkDesignRules } from './drc.js';
+export { TOUCH_TOLERANCE, regionMargin, segmentSegment, segmentsIntersect, inCopper, type CopperShape, type RegionMargin } from './fit.js';
+export { RULE_TOLERANCE } from './drc.js';

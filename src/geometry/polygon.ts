@@ -6,7 +6,7 @@ import type { Bounds, CopperIsland, Point, Ring } from '../seams.js';
 export const GRID = 1e-9;
 
 /** Snap a length in metres to the 1 nm grid (Gerber at 6 decimals in mm has the same resolution). */
-export const snap = (metres: number): number => Math.round(metres / GRID) * GRID;
+export const snap = (metres: number): number => Math.round(metres / GRID) * GRID || 0; // `|| 0`: no -0
 
 /** Length in metres as a whole number of nanometres. */
 export const toNm = (metres: number): number => Math.round(metres / GRID);
@@ -132,7 +132,7 @@ export function normaliseRing(ring: Ring, ccw: boolean): Ring {
     }
   }
   if (pts.length < 3) return [];
-  const metres: Point[] = pts.map(([x, y]) => [x * GRID, y * GRID]);
+  const metres: Point[] = pts.map(([x, y]) => [x * GRID || 0, y * GRID || 0]);
   const oriented = (polygonArea(metres) > 0) === ccw ? metres : [...metres].reverse();
   let start = 0;
   for (let i = 1; i < oriented.length; i++) {

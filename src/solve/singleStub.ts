@@ -149,6 +149,13 @@ function checkLineImpedance(z0: number, field: 'lineZ0' | 'stubZ0'): void {
   }
 }
 
+/**
+ * Loads beyond this VSWR on the series line are refused: there the load's resistance is so small against
+ * its reactance (or so far from Z0) that rounding decides the answer. The solver is checked to VSWR 1e9
+ * (test/property/solve.test.ts); 1e12 leaves room above that and stays far below where Γ rounds to 1.
+ */
+export const MAX_LOAD_VSWR = 1e12;
+
 /** VSWR of a load on a line of real z0; Infinity at the chart edge. */
 function vswrOf(load: Complex, z0: number): number {
   const g = abs(div(sub(load, complex(z0)), add(load, complex(z0))));
@@ -204,6 +211,15 @@ export function solveSingleStub(problem: StubProblem): IdealSolution {
   checkLineImpedance(stubZ0, 'stubZ0');
   checkImpedance(load, 'load');
   checkImpedance(target, 'target');
+  const loadVswr = vswrOf(load, lineZ0);
+  if (!(loadVswr <= MAX_LOAD_VSWR)) {
+    fail(
+      'solve.no-passive-solution',
+      'load',
+      `the load is at the edge of the Smith chart on the ${trimmed(lineZ0, 4)} Ω line (VSWR ${Number.isFinite(loadVswr) ? loadVswr.toExponential(1) : 'beyond 1e16'}, over ${MAX_LOAD_VSWR.toExponential(0)}): ` +
+        'its resistance is lost to rounding against its reactance or Z0, so no match can be computed; check the load value',
+    );
+  }
 
   const yLoad = div(complex(lineZ0), load);
   const yTarget = div(complex(lineZ0), target);

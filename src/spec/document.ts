@@ -123,7 +123,8 @@ export function readDocument(text: string, source: string): SpecDocument {
   const error = doc.errors[0];
   if (error) {
     const pos = counter.linePos(error.pos[0]);
-    fail('spec.syntax', `${source}:${pos.line}:${pos.col}`, parserMessage(error.message));
+    const message = parserMessage(error.message);
+    fail('spec.syntax', `${source}:${pos.line}:${pos.col}`, message === firstLine(error.message) ? `not valid YAML or JSON: ${message}` : message);
   }
   let data: unknown;
   const lines = new Map<string, number>();

@@ -19,6 +19,7 @@ export type FieldType =
   | { readonly kind: 'impedance' }
   | { readonly kind: 'enum'; readonly values: readonly string[] }
   | { readonly kind: 'integer'; readonly min: number; readonly max: number }
+  | { readonly kind: 'boolean' }
   | { readonly kind: 'region' }
   | { readonly kind: 'regions' }
   | { readonly kind: 'group'; readonly fields: readonly Field[] };
@@ -85,6 +86,14 @@ export const LEAD_FIELDS: readonly Field[] = [
   { key: 'source', prop: 'source', type: length(NON_NEGATIVE), presence: 'default', defaultText: '2 mm', doc: 'straight line from the stub junction to the source port' },
 ];
 
+/** Where the section lands on the board: mirror about its own x axis first, then rotate, then move. */
+export const PLACE_FIELDS: readonly Field[] = [
+  { key: 'x', prop: 'x', type: length({}), presence: 'default', defaultText: '0 mm', doc: 'board x of the load reference plane centre' },
+  { key: 'y', prop: 'y', type: length({}), presence: 'default', defaultText: '0 mm', doc: 'board y of the load reference plane centre' },
+  { key: 'rotation_deg', prop: 'rotationDeg', type: { kind: 'quantity', dimension: 'dimensionless', bounds: {} }, presence: 'default', defaultText: '0', doc: 'counter-clockwise rotation of the whole section in degrees (any real angle)' },
+  { key: 'mirror', prop: 'mirror', type: { kind: 'boolean' }, presence: 'default', defaultText: 'false', doc: 'mirror the section about its own x axis (the series line) before rotating' },
+];
+
 export const SWEEP_FIELDS: readonly Field[] = [
   { key: 'start', prop: 'start', type: frequency, presence: 'derived', defaultText: 'frequency − 20 %', doc: 'lowest sweep frequency, below frequency' },
   { key: 'stop', prop: 'stop', type: frequency, presence: 'derived', defaultText: 'frequency + 20 %', doc: 'highest sweep frequency, above frequency' },
@@ -105,6 +114,7 @@ export const SPEC_FIELDS: readonly Field[] = [
   { key: 'substrate', prop: 'substrate', type: { kind: 'group', fields: [SUBSTRATE_PRESET_FIELD, ...SUBSTRATE_FIELDS] }, presence: 'required', doc: 'dielectric and copper; a preset, explicit keys, or both' },
   { key: 'fab', prop: 'fab', type: { kind: 'group', fields: [FAB_PRESET_FIELD, ...FAB_FIELDS] }, presence: 'default', defaultText: '{}', doc: 'fabrication rules; a preset, explicit keys, or both' },
   { key: 'leads', prop: 'leads', type: { kind: 'group', fields: LEAD_FIELDS }, presence: 'default', defaultText: '{}', doc: 'straight lines at the two ports' },
+  { key: 'place', prop: 'place', type: { kind: 'group', fields: PLACE_FIELDS }, presence: 'default', defaultText: '{}', doc: 'where the section lands on the board: { x, y, rotation_deg, mirror }; area and keep-outs are in board coordinates' },
   { key: 'area', prop: 'area', type: { kind: 'region' }, presence: 'optional', doc: 'where copper may go: { x: [min, max], y: [min, max] } or { polygon: [[x, y], …] }' },
   { key: 'keepouts', prop: 'keepouts', type: { kind: 'regions' }, presence: 'default', defaultText: '[]', doc: 'regions copper must avoid: rectangles, polygons or { center: [x, y], radius: r }' },
   { key: 'clearance', prop: 'clearance', type: length(NON_NEGATIVE), presence: 'default', defaultText: '0 mm', doc: 'extra distance kept from keep-outs and the area edge' },
@@ -141,6 +151,8 @@ export function typeText(type: FieldType): string {
       return type.values.join(' | ');
     case 'integer':
       return `integer ${type.min}–${type.max}`;
+    case 'boolean':
+      return 'true | false';
     case 'region':
       return 'region';
     case 'regions':

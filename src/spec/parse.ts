@@ -6,7 +6,7 @@ import type { Complex } from '../math/complex.js';
 import type { FabRules, Region, Spec, StubChoice, StubStyle, Substrate } from '../seams.js';
 import { formatEngineering, shown } from '../units.js';
 import { lineAt, readDocument, type SpecDocument } from './document.js';
-import { FAB_FIELDS, FAB_PRESET_FIELDS, LEAD_FIELDS, SPEC_FIELDS, SUBSTRATE_FIELDS, SUBSTRATE_PRESET_FIELDS, SWEEP_FIELDS, typeText, type Field } from './fields.js';
+import { FAB_FIELDS, FAB_PRESET_FIELDS, LEAD_FIELDS, PLACE_FIELDS, SPEC_FIELDS, SUBSTRATE_FIELDS, SUBSTRATE_PRESET_FIELDS, SWEEP_FIELDS, typeText, type Field } from './fields.js';
 import { defaultValue, fabPresetSchema, issueWhere, specSchema, substratePresetSchema } from './schema.js';
 import { closest, suggestion } from './suggest.js';
 import { unknownKeys } from './unknown-keys.js';
@@ -209,9 +209,16 @@ function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): S
     diagnostics.push(...loaded.warnings);
   }
   const fab = fabOf(fill(FAB_FIELDS, fabValues, fabPreset, 'fab', defaulted));
+  if (!(fab.viaPad > fab.viaDrill)) {
+    // A pad no larger than its hole leaves no copper around the via: not a design to check, an input to fix.
+    fail('spec.invalid', fabValues.via_pad !== undefined || fabValues.via_drill === undefined ? 'fab.via_pad' : 'fab.via_drill', `via pad ${formatEngineering(fab.viaPad, 'm')} must be larger than the via drill ${formatEngineering(fab.viaDrill, 'm')}`);
+  }
 
   const leadValues = fill(LEAD_FIELDS, group('leads'), {}, 'leads', defaulted);
   const leads = { load: leadValues.load as number, source: leadValues.source as number };
+
+  const placeValues = fill(PLACE_FIELDS, group('place'), {}, 'place', defaulted);
+  const place = { x: placeValues.x as number, y: placeValues.y as number, rotationDeg: placeValues.rotation_deg as number, mirror: placeValues.mirror as boolean };
 
   const area = values.area as Region | undefined;
   const keepouts = top('keepouts') as readonly Region[];
@@ -246,6 +253,7 @@ function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): S
     substrate,
     fab,
     leads,
+    place,
     ...(area === undefined ? {} : { area }),
     keepouts,
     clearance,

@@ -69,6 +69,9 @@ export function convertValue(type: Exclude<FieldType, { kind: 'group' }>, value:
       return checkEnum(value, type.values, where);
     case 'integer':
       return checkInteger(value, type.min, type.max, where);
+    case 'boolean':
+      if (typeof value !== 'boolean') return fail('spec.invalid', where, `${shown(value)} is not allowed; use true or false`);
+      return value;
     case 'region':
       return parseRegion(value, where);
     case 'regions':

@@ -1,16 +1,18 @@
 // DXF R2000 (AC1015) writer, written by hand so the text is byte-stable: handles are numbered per
 // drawing, in writing order. Sources for the structure: Autodesk, DXF Reference (HEADER variables,
-// TABLES, BLOCKS, OBJECTS, LWPOLYLINE, CIRCLE, LINE, TEXT group codes) and the ezdxf documentation
-// (DXF internals: file structure), as summarised in physics.md §8 [R].
+// TABLES, BLOCKS, OBJECTS, LWPOLYLINE and TEXT group codes) and the ezdxf documentation (DXF
+// internals: file structure), as summarised in physics.md §8 [R].
 //
-// Content: every copper ring (outlines and holes) as a closed LWPOLYLINE (group 70 = 1) on
-// COPPER_TOP, via pads included in those rings; drills as CIRCLEs (drill diameter) on DRILL;
-// reference planes, arrows and labels on PORTS; notes and dimension lines on NOTES; the allowed
-// area on AREA and keep-outs on KEEPOUT when given (rect and polygon as closed LWPOLYLINEs, circle
-// as CIRCLE). Units: millimetres, $INSUNITS 4 and $MEASUREMENT 1; 6 decimals.
+// Content, all geometry as LWPOLYLINE (no LINE, no CIRCLE): every copper ring (outlines and holes)
+// as a closed polyline on COPPER_TOP, via pads included in those rings; drills as closed circles of
+// four bulged quarter arcs on DRILL; reference planes, arrows and labels on PORTS; dimension lines,
+// arrow heads and TEXT labels on DIMENSIONS; notes on NOTES; the allowed area on AREA and keep-outs
+// on KEEPOUT when given. Units: millimetres, $INSUNITS 4 and $MEASUREMENT 1; coordinates rounded
+// once to the nanometre (6 decimals), non-finite values refused.
 import type { Artifact, BoardGeometry, Bounds, Point, Region, Ring } from '../seams.js';
 import { EMPTY_BOUNDS, isEmptyBounds, mergeBounds, ringBounds } from '../geometry/polygon.js';
 import { labelHeight, mm6, type ArtworkMeta } from './units.js';
+import { dimensionLine, extraDimensions, featureDimensions, type Dimension } from './dimensions.js';
 
 export type { ArtworkMeta } from './units.js';
 
@@ -21,6 +23,7 @@ const LAYER_COLOURS: Readonly<Record<string, number>> = {
   COPPER_TOP: 30,
   DRILL: 7,
   PORTS: 5,
+  DIMENSIONS: 4,
   NOTES: 8,
   AREA: 3,
   KEEPOUT: 1,
@@ -55,29 +58,45 @@ const grow = (d: Drawing, b: Bounds): void => {
   d.extents = mergeBounds(d.extents, b);
 };
 
-function polyline(d: Drawing, layer: string, ring: Ring, closed: boolean): void {
-  const vertices = ring.flatMap(([x, y]): Pair[] => [
+/** A vertex with the bulge of the segment that starts at it (tan of a quarter of the arc's angle; 0 = straight). */
+type Vertex = readonly [x: number, y: number, bulge?: number];
+
+function polyline(d: Drawing, layer: string, ring: readonly Vertex[], closed: boolean): void {
+  const vertices = ring.flatMap(([x, y, bulge]): Pair[] => [
     [10, mm6(x)],
     [20, mm6(y)],
+    ...(bulge ? ([[42, bulge.toFixed(12)]] as Pair[]) : []),
   ]);
   d.entities.push([[0, 'LWPOLYLINE'], [100, 'AcDbEntity'], [8, layer], [100, 'AcDbPolyline'], [90, String(ring.length)], [70, closed ? '1' : '0'], [43, '0.000000'], ...vertices]);
-  grow(d, ringBounds(ring));
+  grow(d, ringBounds(ring.map(([x, y]) => [x, y] as const)));
 }
 
+/** Bulge of a quarter circle: tan(90° / 4) (Autodesk DXF Reference, LWPOLYLINE group 42). */
+const QUARTER_BULGE = Math.tan(Math.PI / 8);
+
+/** A full circle as a closed LWPOLYLINE of four quarter arcs, so every outline is an LWPOLYLINE. */
 function circle(d: Drawing, layer: string, centre: Point, radius: number): void {
-  d.entities.push([[0, 'CIRCLE'], [100, 'AcDbEntity'], [8, layer], [100, 'AcDbCircle'], ...point(0, centre), [40, mm6(radius)]]);
-  grow(d, { xmin: centre[0] - radius, ymin: centre[1] - radius, xmax: centre[0] + radius, ymax: centre[1] + radius });
+  const [cx, cy] = centre;
+  polyline(d, layer, [[cx + radius, cy, QUARTER_BULGE], [cx, cy + radius, QUARTER_BULGE], [cx - radius, cy, QUARTER_BULGE], [cx, cy - radius, QUARTER_BULGE]], true);
 }
 
-function line(d: Drawing, layer: string, from: Point, to: Point): void {
-  d.entities.push([[0, 'LINE'], [100, 'AcDbEntity'], [8, layer], [100, 'AcDbLine'], ...point(0, from), ...point(1, to)]);
-  grow(d, ringBounds([from, to]));
+/** An open two-point LWPOLYLINE (no LINE entities anywhere). */
+const segment = (d: Drawing, layer: string, from: Point, to: Point): void => polyline(d, layer, [from, to], false);
+
+/** A filled-looking arrow head: a closed triangle with its tip at `tip`, pointing along (ux, uy). */
+function arrowHead(d: Drawing, layer: string, tip: Point, [ux, uy]: Point, size: number): void {
+  const back: Point = [tip[0] - ux * size, tip[1] - uy * size];
+  polyline(d, layer, [tip, [back[0] - uy * size * 0.35, back[1] + ux * size * 0.35], [back[0] + uy * size * 0.35, back[1] - ux * size * 0.35]], true);
 }
 
-/** Single-line TEXT, left-aligned at its insertion point; height in metres. */
-function text(d: Drawing, layer: string, at: Point, height: number, content: string): void {
-  d.entities.push([[0, 'TEXT'], [100, 'AcDbEntity'], [8, layer], [100, 'AcDbText'], ...point(0, at), [40, mm6(height)], [1, dxfString(content)], [100, 'AcDbText']]);
-  grow(d, ringBounds([at, [at[0] + 0.6 * height * content.length, at[1] + height]]));
+/** Single-line TEXT; height in metres. Centred on `at` (72 = 1, 73 = 2, alignment point 11/21/31) and turned by `angleDeg`. */
+function text(d: Drawing, layer: string, at: Point, height: number, content: string, centred = false, angleDeg = 0): void {
+  const rotation: Pair[] = angleDeg !== 0 ? [[50, angleDeg.toFixed(6)]] : [];
+  const align: Pair[] = centred ? [[72, '1'], ...point(1, at)] : [];
+  const tail: Pair[] = centred ? [[100, 'AcDbText'], [73, '2']] : [[100, 'AcDbText']];
+  d.entities.push([[0, 'TEXT'], [100, 'AcDbEntity'], [8, layer], [100, 'AcDbText'], ...point(0, at), [40, mm6(height)], [1, dxfString(content)], ...rotation, ...align, ...tail]);
+  const w = 0.6 * height * content.length;
+  grow(d, centred ? ringBounds([[at[0] - w / 2, at[1] - height], [at[0] + w / 2, at[1] + height]]) : ringBounds([at, [at[0] + w, at[1] + height]]));
 }
 
 function region(d: Drawing, layer: string, r: Region): void {
@@ -88,6 +107,23 @@ function region(d: Drawing, layer: string, r: Region): void {
     const key = ([x, y]: Point): string => `${mm6(x)},${mm6(y)}`;
     polyline(d, layer, r.points.filter((p, i) => key(p) !== key(r.points[(i + r.points.length - 1) % r.points.length]!)), true);
   }
+}
+
+/** A dimension: extension lines, the dimension line with an arrow head at each end, and its label. */
+function dimension(d: Drawing, dim: Dimension, h: number): void {
+  const { a, b, labelAt, angleDeg } = dimensionLine(dim, h);
+  const [nx, ny] = dim.normal;
+  segment(d, 'DIMENSIONS', [dim.from[0] + nx * 0.3 * h, dim.from[1] + ny * 0.3 * h], [a[0] + nx * 0.5 * h, a[1] + ny * 0.5 * h]);
+  segment(d, 'DIMENSIONS', [dim.to[0] + nx * 0.3 * h, dim.to[1] + ny * 0.3 * h], [b[0] + nx * 0.5 * h, b[1] + ny * 0.5 * h]);
+  segment(d, 'DIMENSIONS', a, b);
+  const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+  if (len > 0) {
+    const u: Point = [(b[0] - a[0]) / len, (b[1] - a[1]) / len];
+    const size = Math.min(0.8 * h, len / 3);
+    arrowHead(d, 'DIMENSIONS', b, u, size);
+    arrowHead(d, 'DIMENSIONS', a, [-u[0], -u[1]], size);
+  }
+  text(d, 'DIMENSIONS', labelAt, h, dim.label, true, angleDeg);
 }
 
 function drawContent(g: BoardGeometry, meta: ArtworkMeta): Drawing {
@@ -103,21 +139,18 @@ function drawContent(g: BoardGeometry, meta: ArtworkMeta): Drawing {
     const [ux, uy] = [Math.cos(a), Math.sin(a)];
     const half = p.width / 2;
     // Reference plane across the line, and an arrow pointing into the network.
-    line(d, 'PORTS', [p.x - uy * half, p.y + ux * half], [p.x + uy * half, p.y - ux * half]);
+    segment(d, 'PORTS', [p.x - uy * half, p.y + ux * half], [p.x + uy * half, p.y - ux * half]);
     const tip: Point = [p.x + ux * p.width, p.y + uy * p.width];
-    line(d, 'PORTS', [p.x, p.y], tip);
-    const back: Point = [tip[0] - ux * p.width * 0.3, tip[1] - uy * p.width * 0.3];
-    line(d, 'PORTS', tip, [back[0] - uy * p.width * 0.15, back[1] + ux * p.width * 0.15]);
-    line(d, 'PORTS', tip, [back[0] + uy * p.width * 0.15, back[1] - ux * p.width * 0.15]);
-    text(d, 'PORTS', [p.x - ux * (p.width + (p.role === 'load' ? 4 : 0) * h), p.y + half + 0.5 * h], h, p.role);
+    const head = p.width * 0.3;
+    segment(d, 'PORTS', [p.x, p.y], [tip[0] - ux * head, tip[1] - uy * head]);
+    arrowHead(d, 'PORTS', tip, [ux, uy], head);
+    // Label behind the reference plane, outside the network.
+    text(d, 'PORTS', [p.x - ux * 2.5 * h, p.y - uy * 2.5 * h], h, p.role, true);
   }
-  for (const dim of meta.dimensions ?? []) {
-    line(d, 'NOTES', dim.from, dim.to);
-    text(d, 'NOTES', [(dim.from[0] + dim.to[0]) / 2, (dim.from[1] + dim.to[1]) / 2 + 0.3 * h], h, dim.label);
-  }
+  for (const dim of [...featureDimensions(g, h), ...extraDimensions(g, meta, h)]) dimension(d, dim, h);
   if (g.area) region(d, 'AREA', g.area);
   for (const k of g.keepouts) region(d, 'KEEPOUT', k);
-  const base = isEmptyBounds(g.bounds) ? { xmin: 0, ymin: 0 } : g.bounds;
+  const base = isEmptyBounds(d.extents) ? { xmin: 0, ymin: 0 } : d.extents;
   const lines = [`${meta.name} - tunestrip ${meta.version} - units mm`, ...meta.notes];
   lines.forEach((n, i) => text(d, 'NOTES', [base.xmin, base.ymin - (i + 2) * 1.6 * h], h, n));
   return d;
@@ -147,7 +180,7 @@ export function writeDxf(g: BoardGeometry, meta: ArtworkMeta): Artifact {
   const hRootDict = handle();
   const hGroupDict = handle();
 
-  const layers = ['0', 'COPPER_TOP', 'DRILL', 'PORTS', 'NOTES', ...(g.area ? ['AREA'] : []), ...(g.keepouts.length > 0 ? ['KEEPOUT'] : [])];
+  const layers = ['0', 'COPPER_TOP', 'DRILL', 'PORTS', 'DIMENSIONS', 'NOTES', ...(g.area ? ['AREA'] : []), ...(g.keepouts.length > 0 ? ['KEEPOUT'] : [])];
   const table = (name: string, h: string, count: number, records: Pair[][], extraMarker?: string): void => {
     emit([0, 'TABLE'], [2, name], [5, h], [330, '0'], [100, 'AcDbSymbolTable'], [70, String(count)]);
     if (extraMarker) emit([100, extraMarker]);

@@ -116,3 +116,36 @@ export function writeGerberProfile(g: BoardGeometry, meta: ArtworkMeta): Artifac
   lines.push('M02*');
   return { path: `${fileStem(meta.name)}-profile.gbr`, mediaType: MEDIA_TYPE, text: lines.join('\n') + '\n' };
 }
+
+/**
+ * Keep-outs as their own layer, in the copper file's coordinates: rectangles and polygons as dark
+ * regions, circles as flashes of a circular aperture of their diameter. The file function is
+ * `Other,Keepout` (§5.6.3 lists an `Other,<text>` function for layers it has no name for; from
+ * memory). One aperture stays defined even without circles (gerbv 2.9 warns on regions-only files,
+ * ecosystem.md). Null when there are no keep-outs.
+ */
+export function writeGerberKeepout(g: BoardGeometry, meta: ArtworkMeta): Artifact | null {
+  if (g.keepouts.length === 0) return null;
+  const lines = header(meta, 'keep-out regions', 'Other,Keepout', 'Positive');
+  const sizes = [...new Set(g.keepouts.flatMap((k) => (k.kind === 'circle' ? [mm6(2 * k.radius)] : [])))].sort((a, b) => Number(a) - Number(b));
+  if (sizes.length === 0) sizes.push(mm6(PROFILE_STROKE));
+  const dcode = new Map(sizes.map((s, i) => [s, 10 + i] as const));
+  lines.push(...sizes.map((s) => `%ADD${dcode.get(s)}C,${s}*%`));
+  for (const k of g.keepouts) {
+    const outline = regionOutline(k);
+    if (outline) {
+      if (outline.length < 3) throw new RangeError('a keep-out outline needs at least three vertices');
+      lines.push(...region([outline]));
+    }
+  }
+  let current: number | null = null;
+  for (const k of g.keepouts) {
+    if (k.kind !== 'circle') continue;
+    const d = dcode.get(mm6(2 * k.radius))!;
+    if (d !== current) lines.push(`D${d}*`);
+    current = d;
+    lines.push(`${gerberXY(k.center)}D03*`);
+  }
+  lines.push('M02*');
+  return { path: `${fileStem(meta.name)}-keepout.gbr`, mediaType: MEDIA_TYPE, text: lines.join('\n') + '\n' };
+}

@@ -1,6 +1,6 @@
 // Every file a design writes, in a fixed order. Writers are pure: geometry and records in, text out.
 import type { Artifact } from '../seams.js';
-import { writeDxf, writeSvg, writeGerberCopper, writeGerberProfile, writeDrill, type ArtworkMeta } from './artwork.js';
+import { writeDxf, writeSvg, writeGerberCopper, writeGerberProfile, writeGerberKeepout, writeDrill, type ArtworkMeta } from './artwork.js';
 import { writeDesignJson, type DesignRecordInput } from './json.js';
 import { writeTouchstone } from './touchstone.js';
 import { writeReport } from './report.js';
@@ -22,7 +22,7 @@ export function artworkMeta(input: DesignRecordInput): ArtworkMeta {
 export function writeArtifacts(input: DesignRecordInput): Artifact[] {
   const meta = artworkMeta(input);
   const g = input.geometry;
-  const optional = [writeGerberProfile(g, meta), writeDrill(g, meta)].filter((a): a is Artifact => a !== null);
+  const optional = [writeGerberProfile(g, meta), writeGerberKeepout(g, meta), writeDrill(g, meta)].filter((a): a is Artifact => a !== null);
   return [
     writeDxf(g, meta),
     writeSvg(g, meta),

@@ -1,19 +1,10 @@
 // report.md: a design record for a person — what was asked, what was chosen and why, how each
 // length was corrected, what the model predicts, and the cautions that go with RF hardware.
-import type { Diagnostic } from '../diagnostics.js';
-import type { Artifact, BoardGeometry, IdealSolution, PhysicalDesign, ResponseSet, Section, Spec } from '../seams.js';
+import type { Artifact, Section } from '../seams.js';
+import type { DesignRecordInput } from './json.js';
 import { fixed, impedanceText, mm, trimmed } from '../format.js';
 
-export interface ReportInput {
-  readonly spec: Spec;
-  readonly ideal: IdealSolution;
-  readonly physical: PhysicalDesign;
-  readonly response: ResponseSet;
-  readonly geometry: BoardGeometry;
-  readonly diagnostics: readonly Diagnostic[];
-  readonly fit: { readonly fits: boolean; readonly margin: number; readonly limitedBy: string; readonly changed: readonly string[] };
-  readonly version: string;
-}
+export type ReportInput = DesignRecordInput;
 
 export const CAUTIONS: readonly string[] = [
   'This design comes from closed-form models. Verify it by EM simulation or by measurement before it is used in a product or connected to a transmitter.',

@@ -1,7 +1,8 @@
 // SVG drawing of the layout at true scale: width, height and viewBox in millimetres, so 1 user
 // unit = 1 mm. Board y points up, SVG y points down: y is negated here, once, in `sy`.
 // Palette (our own): neutral board, copper tone, dark blue dimensions, red keep-outs.
-import type { Artifact, BoardGeometry, Bounds, Feature, Point, Region, Ring } from '../seams.js';
+import type { Artifact, BoardGeometry, Bounds, Point, Region, Ring } from '../seams.js';
+import { dimensionLine, extraDimensions, featureDimensions, type Dimension } from './dimensions.js';
 import { isEmptyBounds, mergeBounds, ringBounds } from '../geometry/polygon.js';
 import { trimmed } from '../format.js';
 import { labelHeight, mmLabel, nanometres, type ArtworkMeta } from './units.js';
@@ -52,65 +53,24 @@ function regionElement(r: Region, attrs: string): string {
   return `<path d="${pathData([regionRing(r)!])}" ${attrs}/>`;
 }
 
-interface Dimension {
-  readonly from: Point;
-  readonly to: Point;
-  /** Unit normal towards the side the dimension line sits on, and its distance from the measured points (m). */
-  readonly normal: Point;
-  readonly offset: number;
-  readonly label: string;
-}
-
-/**
- * Length and width dimensions of every feature, placed outside the copper: line and lead lengths
- * as one chain below the lowest copper, widths at the line ends, stub lengths beside each stub and
- * stub widths beyond each stub's end.
- */
-function featureDimensions(features: readonly Feature[], copper: Bounds, h: number): Dimension[] {
-  const dims: Dimension[] = [];
-  const gap = 2.5 * h;
-  const label = (prefix: string, v: number): string => `${prefix} ${mmLabel(v)} mm`;
-  for (const f of features) {
-    const r = f.rect;
-    if (f.kind === 'line' || f.kind === 'lead') {
-      if (f.length > 0) dims.push({ from: [r.xmin, r.ymin], to: [r.xmax, r.ymin], normal: [0, -1], offset: r.ymin - copper.ymin + gap, label: label('L', f.length) });
-      const x = f.kind === 'line' ? r.xmin : r.xmax;
-      dims.push({ from: [x, r.ymin], to: [x, r.ymax], normal: [f.kind === 'line' ? -1 : 1, 0], offset: gap * 2, label: label('W', f.width) });
-    } else if (f.kind === 'stub') {
-      const up = r.ymax > 0;
-      // The stub's length runs from the series line's edge (its rect starts on the centre-line).
-      const edge = up ? r.ymax - f.length : r.ymin + f.length;
-      const end = up ? r.ymax : r.ymin;
-      if (f.length > 0) dims.push({ from: [r.xmax, edge], to: [r.xmax, end], normal: [1, 0], offset: gap, label: label('L', f.length) });
-      const beyond = up ? copper.ymax - end : end - copper.ymin;
-      dims.push({ from: [r.xmin, end], to: [r.xmax, end], normal: [0, up ? 1 : -1], offset: beyond + gap * (up ? 1 : 2.2), label: label('W', f.width) });
-    }
-  }
-  return dims;
-}
-
 function dimensionElements(d: Dimension, h: number): { svg: string[]; bounds: Bounds } {
   const [nx, ny] = d.normal;
-  const a: Point = [d.from[0] + nx * d.offset, d.from[1] + ny * d.offset];
-  const b: Point = [d.to[0] + nx * d.offset, d.to[1] + ny * d.offset];
+  const { a, b, labelAt, angleDeg } = dimensionLine(d, h);
   const ext = (p: Point, q: Point): string =>
     `<line x1="${sx(p[0] + nx * 0.3 * h)}" y1="${sy(p[1] + ny * 0.3 * h)}" x2="${sx(q[0] + nx * 0.5 * h)}" y2="${sy(q[1] + ny * 0.5 * h)}" class="ext"/>`;
-  const mid: Point = [(a[0] + b[0]) / 2 + nx * 0.6 * h, (a[1] + b[1]) / 2 + ny * 0.6 * h];
-  const vertical = Math.abs(b[0] - a[0]) < Math.abs(b[1] - a[1]);
-  const rotate = vertical ? ` transform="rotate(-90 ${sx(mid[0])} ${sy(mid[1])})"` : '';
-  // Text sits beside the line on the normal side; baseline shift keeps it off the line.
-  const textAt: Point = vertical ? [mid[0] + (nx >= 0 ? 0.4 : 0) * h, mid[1]] : [mid[0], mid[1] + (ny > 0 ? 0 : -0.8 * h)];
+  // SVG angles turn clockwise on screen (y down): the board angle with its sign changed.
+  const rotate = angleDeg !== 0 ? ` transform="rotate(${trimmed(-angleDeg, 6)} ${sx(labelAt[0])} ${sy(labelAt[1])})"` : '';
   const svg = [
     ext(d.from, a),
     ext(d.to, b),
     `<line x1="${sx(a[0])}" y1="${sy(a[1])}" x2="${sx(b[0])}" y2="${sy(b[1])}" class="dim" marker-start="url(#dim-arrow)" marker-end="url(#dim-arrow)"/>`,
-    `<text x="${sx(textAt[0])}" y="${sy(textAt[1])}" class="dim-label"${rotate}>${escapeXml(d.label)}</text>`,
+    `<text x="${sx(labelAt[0])}" y="${sy(labelAt[1])}" class="dim-label"${rotate}>${escapeXml(d.label)}</text>`,
   ];
-  const reach = 1.5 * h;
+  const reachOut = 1.5 * h;
   const bounds = ringBounds([
-    [a[0] + nx * reach, a[1] + ny * reach],
-    [b[0] + nx * reach, b[1] + ny * reach],
-    [mid[0] + nx * reach, mid[1] + ny * reach],
+    [a[0] + nx * reachOut, a[1] + ny * reachOut],
+    [b[0] + nx * reachOut, b[1] + ny * reachOut],
+    [labelAt[0] + nx * reachOut, labelAt[1] + ny * reachOut],
     d.from,
     d.to,
   ]);
@@ -133,11 +93,7 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
   if (g.area) extent = mergeBounds(extent, regionBounds(g.area));
   for (const k of g.keepouts) extent = mergeBounds(extent, regionBounds(k));
 
-  const dims = [
-    ...featureDimensions(g.features, g.bounds, h),
-    // Extra dimensions from the caller: stacked below the chain of line lengths.
-    ...(meta.dimensions ?? []).map((d, i): Dimension => ({ from: d.from, to: d.to, normal: [0, -1], offset: Math.max(0, Math.min(d.from[1], d.to[1]) - g.bounds.ymin) + (7.5 + 2.5 * i) * h, label: d.label })),
-  ];
+  const dims = [...featureDimensions(g, h), ...extraDimensions(g, meta, h)];
   const dimSvg: string[] = [];
   for (const d of dims) {
     const e = dimensionElements(d, h);
@@ -216,7 +172,7 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
     `.drill-cross{stroke:${COLOURS.drillEdge};stroke-width:${n(h / 30)};fill:none}`,
     `.dim,.ext{stroke:${COLOURS.dimension};stroke-width:${n(h / 20)};fill:none}`,
     `.ext{stroke-width:${n(h / 30)}}`,
-    `.dim-label{fill:${COLOURS.dimension};font-size:${n(h)}px;text-anchor:middle}`,
+    `.dim-label{fill:${COLOURS.dimension};font-size:${n(h)}px;text-anchor:middle;dominant-baseline:middle}`,
     `.port,.port-plane{stroke:${COLOURS.port};stroke-width:${n(h / 10)};fill:none}`,
     `.port-plane{stroke-dasharray:${n(h / 3)} ${n(h / 6)}}`,
     `.port-label{fill:${COLOURS.port};font-size:${n(h)}px;font-weight:bold;text-anchor:middle}`,

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { FIXTURES } from './fixtures.js';
 import { writeDxf } from '../../src/writers/dxf.js';
 import { writeSvg } from '../../src/writers/svg.js';
-import { writeGerberCopper, writeGerberProfile } from '../../src/writers/gerber.js';
+import { writeGerberCopper, writeGerberKeepout, writeGerberProfile } from '../../src/writers/gerber.js';
 import { writeDrill } from '../../src/writers/drill.js';
 import type { Artifact, BoardGeometry } from '../../src/seams.js';
 import type { ArtworkMeta } from '../../src/writers/units.js';
@@ -20,6 +20,7 @@ const WRITERS: readonly [string, (g: BoardGeometry, m: ArtworkMeta) => Artifact 
   ['svg', writeSvg],
   ['gerber-copper', writeGerberCopper],
   ['gerber-profile', writeGerberProfile],
+  ['gerber-keepout', writeGerberKeepout],
   ['drill', writeDrill],
 ];
 
@@ -27,8 +28,11 @@ describe.each(FIXTURES)('golden: $name', (f) => {
   it.each(WRITERS)('%s', (kind, write) => {
     const art = write(f.geometry, f.meta);
     if (art === null) {
-      // Only the drill (no vias) and the profile (no area) may be absent.
-      const allowed = (kind === 'drill' && f.geometry.vias.length === 0) || (kind === 'gerber-profile' && !f.geometry.area);
+      // Only the drill (no vias), the profile (no area) and the keep-out layer (no keep-outs) may be absent.
+      const allowed =
+        (kind === 'drill' && f.geometry.vias.length === 0) ||
+        (kind === 'gerber-profile' && !f.geometry.area) ||
+        (kind === 'gerber-keepout' && f.geometry.keepouts.length === 0);
       return expect(allowed).toBe(true);
     }
     const file = join(here, f.name, art.path);

@@ -33,7 +33,8 @@ describe.skipIf(missing !== null)('ezdxf audit', () => {
     expect(a.measurement).toBe(1); // Autodesk DXF Reference: $MEASUREMENT 1 = metric
     const copper = f.geometry.copper.reduce((n, c) => n + 1 + c.holes.length, 0);
     expect(a.entities['COPPER_TOP:LWPOLYLINE']).toBe(copper);
-    expect(a.entities['DRILL:CIRCLE'] ?? 0).toBe(f.geometry.vias.length);
+    expect(a.entities['DRILL:LWPOLYLINE'] ?? 0).toBe(f.geometry.vias.length);
+    expect(Object.keys(a.entities).filter((k) => /:(LINE|CIRCLE)$/.test(k))).toEqual([]);
     expect(a.entities['PORTS:TEXT']).toBe(2);
     expect(a.closedPolylines).toBeGreaterThanOrEqual(copper);
   });

@@ -3,10 +3,11 @@
 // version 2.0, 2009; version 1 syntax). Skips with a printed reason when scikit-rf is absent.
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { designFromText } from '../../src/design.js';
+import { repoPresets } from '../helpers/templates.js';
 import { abs } from '../../src/math/complex.js';
 
 const root = resolve(import.meta.dirname, '..', '..');
@@ -14,9 +15,7 @@ const probe = spawnSync('/usr/bin/python3', ['-c', 'import skrf'], { encoding: '
 const hasSkrf = probe.status === 0;
 if (!hasSkrf) console.warn('skip: Touchstone read-back needs Debian python3-scikit-rf (installed by .ci/run)');
 
-const folder = (f: string) =>
-  Object.fromEntries(readdirSync(join(root, 'templates', f)).filter((n) => n.endsWith('.yaml')).map((n) => [n.replace(/\.yaml$/, ''), readFileSync(join(root, 'templates', f, n), 'utf8')]));
-const presets = { substrates: folder('substrates'), fab: folder('fab') };
+const presets = repoPresets();
 
 const READER = `
 import json, sys, skrf

@@ -1,23 +1,15 @@
 // Fuzzing the spec reader (seeded): whatever the text, parseSpec returns a valid Spec or throws a
 // TunestripError with a one-line message; nothing else escapes.
-import { readFileSync, readdirSync } from 'node:fs';
-import { join } from 'node:path';
 import fc from 'fast-check';
 import YAML from 'yaml';
 import { describe, expect, it } from 'vitest';
+import { repoPresets, repoRoot, yamlFiles } from '../helpers/templates.js';
 import { TunestripError } from '../../src/diagnostics.js';
 import type { Spec } from '../../src/seams.js';
 import { parseSpec, type Presets } from '../../src/spec/parse.js';
 
-const root = join(import.meta.dirname, '..', '..');
-const yamlFiles = (dir: string): Record<string, string> =>
-  Object.fromEntries(
-    readdirSync(join(root, dir))
-      .filter((f) => f.endsWith('.yaml'))
-      .sort()
-      .map((f) => [f.replace(/\.yaml$/, ''), readFileSync(join(root, dir, f), 'utf8')]),
-  );
-const presets: Presets = { substrates: yamlFiles('templates/substrates'), fab: yamlFiles('templates/fab') };
+const root = repoRoot;
+const presets: Presets = repoPresets();
 const exampleTexts = Object.values(yamlFiles('templates/examples'));
 
 const positive = (x: number): boolean => Number.isFinite(x) && x > 0;

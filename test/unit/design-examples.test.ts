@@ -1,23 +1,14 @@
 // The whole pipeline on the bundled example specs, in-process.
 import { describe, expect, it } from 'vitest';
-import { readdirSync, readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { exampleSpecs, repoPresets } from '../helpers/templates.js';
 import { designFromText } from '../../src/design.js';
 import { abs } from '../../src/math/complex.js';
 import { mismatch, physicalInputImpedance } from '../../src/analysis/physicalNetwork.js';
 
-const root = resolve(import.meta.dirname, '..', '..');
-const folder = (f: string) =>
-  Object.fromEntries(
-    readdirSync(join(root, 'templates', f))
-      .filter((n) => n.endsWith('.yaml'))
-      .map((n) => [n.replace(/\.yaml$/, ''), readFileSync(join(root, 'templates', f, n), 'utf8')]),
-  );
-const presets = { substrates: folder('substrates'), fab: folder('fab') };
-const examples = readdirSync(join(root, 'templates', 'examples')).filter((n) => n.endsWith('.yaml')).sort();
+const presets = repoPresets();
+const examples = Object.entries(exampleSpecs());
 
-describe.each(examples)('example %s', (file) => {
-  const text = readFileSync(join(root, 'templates', 'examples', file), 'utf8');
+describe.each(examples)('example %s', (file, text) => {
   const run = designFromText(text, presets, { version: 'test' }, file);
 
   it('presents the target at f0 in the physical model to -50 dB or better', () => {

@@ -1,19 +1,13 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { repoPresets, repoRoot, yamlFiles } from '../helpers/templates.js';
 import { TunestripError } from '../../src/diagnostics.js';
 import { listFields, parseFabPreset, parseSpec, parseSubstratePreset, type Presets } from '../../src/spec/parse.js';
 import { closest, editDistance } from '../../src/spec/suggest.js';
 
-const root = join(import.meta.dirname, '..', '..');
-const yamlFiles = (dir: string): Record<string, string> =>
-  Object.fromEntries(
-    readdirSync(join(root, dir))
-      .filter((f) => f.endsWith('.yaml'))
-      .sort()
-      .map((f) => [f.replace(/\.yaml$/, ''), readFileSync(join(root, dir, f), 'utf8')]),
-  );
-const presets: Presets = { substrates: yamlFiles('templates/substrates'), fab: yamlFiles('templates/fab') };
+const root = repoRoot;
+const presets: Presets = repoPresets();
 const examples = yamlFiles('templates/examples');
 
 function errorOf(run: () => unknown): TunestripError {
@@ -127,7 +121,7 @@ describe('defaults', () => {
         'target', 'line_z0', 'stub_z0', 'stub', 'style', 'stub_side',
         'substrate.copper', 'substrate.tan_delta', 'substrate.roughness', 'substrate.conductivity',
         'fab.min_trace', 'fab.min_space', 'fab.via_drill', 'fab.via_pad', 'fab.min_annular_ring', 'fab.copper_to_edge', 'fab.vias_per_stub',
-        'leads.load', 'leads.source', 'keepouts', 'clearance', 'sweep.start', 'sweep.stop', 'sweep.points',
+        'leads.load', 'leads.source', 'place.x', 'place.y', 'place.rotation_deg', 'place.mirror', 'keepouts', 'clearance', 'sweep.start', 'sweep.stop', 'sweep.points',
       ].sort(),
     );
   });

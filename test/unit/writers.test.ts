@@ -125,14 +125,20 @@ describe.each(FIXTURES)('DXF: $name', (f) => {
     expect(back.problems).toEqual([]);
     // Hand-worked area of the fixture (rectangles and pad polygons), within 1e-6 mm².
     expect(Math.abs(back.copperArea - f.analyticAreaMm2)).toBeLessThanOrEqual(1e-6);
-    const drills = back.dxf.entities.filter((e) => e.type === 'CIRCLE' && e.layer === 'DRILL');
+    // Drills are closed LWPOLYLINEs of four quarter arcs (bulge tan(π/8), Autodesk DXF Reference,
+    // LWPOLYLINE group 42): centre = mean of the four vertices, radius = half their x extent.
+    const drills = back.dxf.entities.filter((e) => e.type === 'LWPOLYLINE' && e.layer === 'DRILL');
     expect(drills).toHaveLength(f.geometry.vias.length);
+    expect(back.dxf.entities.filter((e) => e.type === 'LINE' || e.type === 'CIRCLE')).toEqual([]);
     drills.forEach((d, i) => {
-      expect(d.center!.x).toBeCloseTo(toMm(f.geometry.vias[i]!.x), 6);
-      expect(d.radius).toBeCloseTo(toMm(f.geometry.vias[i]!.drill) / 2, 6);
+      const vs = d.vertices!;
+      expect(vs).toHaveLength(4);
+      expect(vs.reduce((sum, v) => sum + v.x, 0) / 4).toBeCloseTo(toMm(f.geometry.vias[i]!.x), 6);
+      expect((Math.max(...vs.map((v) => v.x)) - Math.min(...vs.map((v) => v.x))) / 2).toBeCloseTo(toMm(f.geometry.vias[i]!.drill) / 2, 6);
+      for (const v of vs) expect((v as { bulge?: number }).bulge).toBeCloseTo(Math.tan(Math.PI / 8), 9);
     });
     const layers = Object.keys(back.dxf.tables.layer!.layers);
-    for (const l of ['COPPER_TOP', 'DRILL', 'PORTS', 'NOTES']) expect(layers).toContain(l);
+    for (const l of ['COPPER_TOP', 'DRILL', 'PORTS', 'DIMENSIONS', 'NOTES']) expect(layers).toContain(l);
     expect(layers.includes('AREA')).toBe(Boolean(f.geometry.area));
     expect(layers.includes('KEEPOUT')).toBe(f.geometry.keepouts.length > 0);
     const texts = back.dxf.entities.filter((e) => e.type === 'TEXT').map((e) => e.text);
