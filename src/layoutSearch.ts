@@ -68,10 +68,13 @@ export function layoutVariants(spec: Spec, lines: SizedLines, explore = hasSpace
         e.style === 'balanced' ? ['left'] : explore ? [spec.stubSide, spec.stubSide === 'left' ? 'right' : 'left'] : [spec.stubSide];
       for (const side of sides) {
         for (const d of explore ? e.designs : e.designs.slice(0, 1)) {
-          const physical: PhysicalDesign = e.style === 'balanced' || d.copper.stubCount === 0 ? d : { ...d, stubSides: [side] };
-          const input = layoutInputOf(spec, physical, fold);
+          const sided: PhysicalDesign = e.style === 'balanced' || d.copper.stubCount === 0 ? d : { ...d, stubSides: [side] };
+          const input = layoutInputOf(spec, sided, fold);
           // A fold that cannot be built at this stub length (too short to fold) is not a variant.
           if (input.fold && !foldFits(input)) continue;
+          // A folded stub carries the bend model's validity warnings (w/h ≥ 0.25) with its design.
+          const bendWarnings = input.fold ? mitreDouvilleJames(sided.copper.stubWidth, spec.substrate.height).warnings : [];
+          const physical: PhysicalDesign = bendWarnings.length > 0 ? { ...sided, diagnostics: [...sided.diagnostics, ...bendWarnings] } : sided;
           const geometry = placeGeometry(layoutStubMatch(input), spec.place);
           const fit = checkFit(geometry, spec.area, spec.keepouts, spec.clearance);
           variants.push({ style: e.style, junction: e.junction, ideal: e.ideal, physical, fold, geometry, fit, changed: preferred ? differences(preferred, physical, fold) : [] });

@@ -49,6 +49,17 @@ export type StubChoice = 'open' | 'short' | 'best';
 export type StubStyle = 'single' | 'balanced';
 export type Termination = 'open' | 'short';
 
+export interface ToleranceSpec {
+  /** Etched width spread (m), the same for every line. */
+  readonly width: number;
+  readonly erFraction: number;
+  readonly heightFraction: number;
+  readonly copperFraction: number;
+  /** Number of runs; 0 turns the check off. */
+  readonly runs: number;
+  readonly seed: number;
+}
+
 export interface Spec {
   readonly name: string;
   readonly frequency: number;
@@ -70,6 +81,8 @@ export interface Spec {
   readonly clearance: number;
   /** Optional sweep band for verification (Hz). */
   readonly sweep: { readonly start: number; readonly stop: number; readonly points: number };
+  /** Fabrication spread for the Monte-Carlo check: uniform within ± each value. */
+  readonly tolerance: ToleranceSpec;
   /** Keys that were not in the file and took their default value, as JSON paths. */
   readonly defaulted: readonly string[];
 }
@@ -191,6 +204,22 @@ export interface ResponseSet {
   readonly s11DbAtF0: number;
   /** Band (Hz) where return loss of the physical network ≥ 10 dB, around f0; null when none. */
   readonly band10dB: { readonly low: number; readonly high: number } | null;
+  /** Monte-Carlo spread of the physical network over the fabrication tolerances; null when off. */
+  readonly tolerance: ToleranceResult | null;
+}
+
+export interface ToleranceResult {
+  readonly runs: number;
+  readonly seed: number;
+  /** |S11| at f0 (dB) over the runs: median, 95th percentile and worst. */
+  readonly s11DbAtF0: { readonly median: number; readonly p95: number; readonly worst: number };
+  /** Frequency of the |S11| minimum over the runs (Hz): 5th and 95th percentile. */
+  readonly minimumFrequency: { readonly p5: number; readonly p95: number };
+  /** Share of runs whose return loss at f0 is at least 10 dB. */
+  readonly yield10dB: number;
+  /** Per-frequency 95th-percentile |S11| (dB) on `frequencies`. */
+  readonly frequencies: readonly number[];
+  readonly envelopeP95Db: readonly number[];
 }
 
 // ───────────────────────────── geometry ─────────────────────────────

@@ -5,11 +5,11 @@ import { idealInputImpedance as idealLine, idealOpenStubAdmittance, idealShortSt
 import { admittanceOf } from '../math/network.js';
 import { mismatch, physicalInputImpedance } from './physicalNetwork.js';
 import { db } from '../physical/realize.js';
+import { toleranceRuns } from './tolerance.js';
+import { frequencyGrid } from './grid.js';
 
-export function frequencyGrid(start: number, stop: number, points: number): number[] {
-  if (points < 2) return [start];
-  return Array.from({ length: points }, (_, i) => start + ((stop - start) * i) / (points - 1));
-}
+export { frequencyGrid };
+
 
 /**
  * The ideal network at frequency f: lossless, dispersionless lines whose electrical lengths scale
@@ -41,6 +41,7 @@ export function sweep(spec: Spec, design: PhysicalDesign): ResponseSet {
     physical,
     s11DbAtF0: design.s11DbAtF0,
     band10dB: bandAround(frequencies, physical, design.frequency, -10),
+    tolerance: toleranceRuns(spec, design),
   };
 }
 

@@ -30,6 +30,10 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
   lines.push(
     `  predicted |S11| at f0 ${fixed(Math.max(physical.s11DbAtF0, -200), 1)} dB; ${response.band10dB ? `return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)}` : 'return loss below 10 dB at f0'}`,
   );
+  const tol = response.tolerance;
+  if (tol) {
+    lines.push(`  fabrication spread (${tol.runs} runs): |S11| at f0 median ${fixed(tol.s11DbAtF0.median, 1)} dB, 95 % ${fixed(tol.s11DbAtF0.p95, 1)} dB; RL ≥ 10 dB in ${fixed(tol.yield10dB * 100, 0)} % of boards`);
+  }
   if (Number.isFinite(run.fit.margin)) {
     lines.push(`  fit: ${run.fit.fits ? 'fits' : 'does not fit'}, worst margin ${mm(run.fit.margin)} mm (${run.fit.limitedBy})${run.fit.changed.length ? `; changed to fit: ${run.fit.changed.join(', ')}` : ''}`);
   }

@@ -79,8 +79,9 @@ function validate(input: StubLayoutInput): void {
   requireLength('leadLength', input.leadLength, false);
   requireLength('stubLength', input.stubLength, false);
   const sides = input.stubSides;
-  if (sides.length < 1 || sides.length > 2 || new Set(sides).size !== sides.length)
-    throw new RangeError(`stubSides must be one side or both distinct sides, got [${sides.join(', ')}]`);
+  // No side at all is a plain line: the load is already matched and needs no stub.
+  if (sides.length > 2 || new Set(sides).size !== sides.length)
+    throw new RangeError(`stubSides must be empty, one side or both distinct sides, got [${sides.join(', ')}]`);
   if (input.termination === 'short') {
     const v = input.via;
     if (!v) throw new RangeError('a short stub needs via dimensions');

@@ -31,6 +31,10 @@ const TANGENT_SLACK = 1e-12;
 
 const TWO_PI = 2 * Math.PI;
 
+/** A number inside a message: 4 decimals, or E-notation where fixed notation cannot show it (|v| ≥ 1e15, tiny, non-finite). */
+const shownNumber = (v: number): string =>
+  Number.isFinite(v) && (v === 0 || (Math.abs(v) < 1e15 && Math.abs(v) >= 1e-4)) ? trimmed(v, 4) : v.toExponential(3);
+
 /** |(Zin − Zt)/(Zin + Zt*)|: the mismatch of zin against the target, as defined for residualGamma. */
 export function mismatchGamma(zin: Complex, target: Complex): number {
   return abs(div(sub(zin, target), add(zin, conj(target))));
@@ -137,7 +141,7 @@ function checkImpedance(z: Complex, field: 'load' | 'target'): void {
     fail(
       'solve.no-passive-solution',
       field,
-      `the ${what} has negative resistance (${trimmed(z.re, 4)} Ω, an active ${field === 'load' ? 'load' : 'port'}): a passive stub network only matches resistance > 0`,
+      `the ${what} has negative resistance (${shownNumber(z.re)} Ω, an active ${field === 'load' ? 'load' : 'port'}): a passive stub network only matches resistance > 0`,
     );
   }
 }
@@ -150,7 +154,7 @@ function checkLineImpedance(z0: number, field: 'lineZ0' | 'stubZ0'): void {
 }
 
 /**
- * Loads beyond this VSWR on the series line are refused: there the load's resistance is so small against
+ * Loads (and targets) beyond this VSWR on the series line are refused: there the resistance is so small against
  * its reactance (or so far from Z0) that rounding decides the answer. The solver is checked to VSWR 1e9
  * (test/property/solve.test.ts); 1e12 leaves room above that and stays far below where Γ rounds to 1.
  */
@@ -166,12 +170,12 @@ function unreachable(problem: StubProblem, gT: number): never {
   const s = vswrOf(problem.load, problem.lineZ0);
   const y0mS = 1e3 / problem.lineZ0;
   const range =
-    s === Infinity ? '' : ` from ${trimmed(y0mS / s, 4)} mS to ${trimmed(y0mS * s, 4)} mS (1/S to S times 1/Z0, VSWR S = ${trimmed(s, 4)})`;
+    s === Infinity ? '' : ` from ${shownNumber(y0mS / s)} mS to ${shownNumber(y0mS * s)} mS (1/S to S times 1/Z0, VSWR S = ${shownNumber(s)})`;
   return fail(
     'solve.no-passive-solution',
     'target',
-    `the target conductance Re(1/Zt) = ${trimmed(gT * y0mS, 4)} mS is unreachable with a single shunt stub on a ` +
-      `${trimmed(problem.lineZ0, 4)} Ω line: along that line the load only presents conductances${range}; ` +
+    `the target conductance Re(1/Zt) = ${shownNumber(gT * y0mS)} mS is unreachable with a single shunt stub on a ` +
+      `${shownNumber(problem.lineZ0)} Ω line: along that line the load only presents conductances${range}; ` +
       'a series line of another impedance, or a second stub, is needed',
   );
 }
@@ -209,16 +213,22 @@ export function solveSingleStub(problem: StubProblem): IdealSolution {
   const { load, target, lineZ0, stubZ0, style } = problem;
   checkLineImpedance(lineZ0, 'lineZ0');
   checkLineImpedance(stubZ0, 'stubZ0');
+  // Far outside any etchable pair of lines the stub's tangent rounds to 0 or ∞ and the residual to NaN.
+  if (!(stubZ0 / lineZ0 <= 1e6 && lineZ0 / stubZ0 <= 1e6)) {
+    fail('solve.no-passive-solution', 'stubZ0', `the stub impedance ${shownNumber(stubZ0)} Ω is over a million times larger or smaller than the line impedance ${shownNumber(lineZ0)} Ω; no stub of such lines can be computed`);
+  }
   checkImpedance(load, 'load');
   checkImpedance(target, 'target');
-  const loadVswr = vswrOf(load, lineZ0);
-  if (!(loadVswr <= MAX_LOAD_VSWR)) {
-    fail(
-      'solve.no-passive-solution',
-      'load',
-      `the load is at the edge of the Smith chart on the ${trimmed(lineZ0, 4)} Ω line (VSWR ${Number.isFinite(loadVswr) ? loadVswr.toExponential(1) : 'beyond 1e16'}, over ${MAX_LOAD_VSWR.toExponential(0)}): ` +
-        'its resistance is lost to rounding against its reactance or Z0, so no match can be computed; check the load value',
-    );
+  for (const [field, z] of [['load', load], ['target', target]] as const) {
+    const vswr = vswrOf(z, lineZ0);
+    if (!(vswr <= MAX_LOAD_VSWR)) {
+      fail(
+        'solve.no-passive-solution',
+        field,
+        `the ${field} is at the edge of the Smith chart on the ${shownNumber(lineZ0)} Ω line (VSWR ${Number.isFinite(vswr) ? vswr.toExponential(1) : 'beyond 1e16'}, over 1e12): ` +
+          `its resistance is lost to rounding against its reactance or Z0, so no match can be computed; check the ${field} value`,
+      );
+    }
   }
 
   const yLoad = div(complex(lineZ0), load);

@@ -100,6 +100,18 @@ export const SWEEP_FIELDS: readonly Field[] = [
   { key: 'points', prop: 'points', type: { kind: 'integer', min: 2, max: 10001 }, presence: 'default', defaultText: '201', doc: 'number of sweep frequencies (2–10001)' },
 ];
 
+// Fabrication spread for the Monte-Carlo check, uniform within ± the value. Defaults are common
+// practice for an RF-grade outer layer, no source (physics.md §9.3 [M]): etched width ±0.025 mm,
+// εr ±2 %, dielectric height ±5 %, copper ±10 %.
+export const TOLERANCE_FIELDS: readonly Field[] = [
+  { key: 'width', prop: 'width', type: length(NON_NEGATIVE), presence: 'default', defaultText: '0.025 mm', doc: 'etched width spread, ± the same for every line (etch bias)' },
+  { key: 'er_fraction', prop: 'erFraction', type: { kind: 'quantity', dimension: 'dimensionless', bounds: { min: 0, max: 0.5 } }, presence: 'default', defaultText: '0.02', doc: 'relative spread of εr (0.02 = ±2 %)' },
+  { key: 'height_fraction', prop: 'heightFraction', type: { kind: 'quantity', dimension: 'dimensionless', bounds: { min: 0, max: 0.5 } }, presence: 'default', defaultText: '0.05', doc: 'relative spread of the dielectric height' },
+  { key: 'copper_fraction', prop: 'copperFraction', type: { kind: 'quantity', dimension: 'dimensionless', bounds: { min: 0, max: 0.5 } }, presence: 'default', defaultText: '0.1', doc: 'relative spread of the copper thickness' },
+  { key: 'runs', prop: 'runs', type: { kind: 'integer', min: 0, max: 10000 }, presence: 'default', defaultText: '200', doc: 'Monte-Carlo runs (0 turns the check off)' },
+  { key: 'seed', prop: 'seed', type: { kind: 'integer', min: 0, max: 2147483647 }, presence: 'default', defaultText: '1', doc: 'seed of the run generator: the same seed gives the same figures' },
+];
+
 /** Keys of a spec file, in the order they are checked and documented. */
 export const SPEC_FIELDS: readonly Field[] = [
   { key: 'name', prop: 'name', type: { kind: 'name' }, presence: 'required', doc: 'output folder name: letters, digits, . _ -, no leading dot, at most 64 characters' },
@@ -119,6 +131,7 @@ export const SPEC_FIELDS: readonly Field[] = [
   { key: 'keepouts', prop: 'keepouts', type: { kind: 'regions' }, presence: 'default', defaultText: '[]', doc: 'regions copper must avoid: rectangles, polygons or { center: [x, y], radius: r }' },
   { key: 'clearance', prop: 'clearance', type: length(NON_NEGATIVE), presence: 'default', defaultText: '0 mm', doc: 'extra distance kept from keep-outs and the area edge' },
   { key: 'sweep', prop: 'sweep', type: { kind: 'group', fields: SWEEP_FIELDS }, presence: 'default', defaultText: '{}', doc: 'frequency sweep used to verify the match' },
+  { key: 'tolerance', prop: 'tolerance', type: { kind: 'group', fields: TOLERANCE_FIELDS }, presence: 'default', defaultText: '{}', doc: 'fabrication spread for the Monte-Carlo check of the match' },
 ];
 
 /** Keys a region may have, by form. */

@@ -6,7 +6,7 @@ import type { Complex } from '../math/complex.js';
 import type { FabRules, Region, Spec, StubChoice, StubStyle, Substrate } from '../seams.js';
 import { formatEngineering, shown } from '../units.js';
 import { lineAt, readDocument, type SpecDocument } from './document.js';
-import { FAB_FIELDS, FAB_PRESET_FIELDS, LEAD_FIELDS, PLACE_FIELDS, SPEC_FIELDS, SUBSTRATE_FIELDS, SUBSTRATE_PRESET_FIELDS, SWEEP_FIELDS, typeText, type Field } from './fields.js';
+import { FAB_FIELDS, FAB_PRESET_FIELDS, LEAD_FIELDS, PLACE_FIELDS, SPEC_FIELDS, SUBSTRATE_FIELDS, SUBSTRATE_PRESET_FIELDS, SWEEP_FIELDS, TOLERANCE_FIELDS, typeText, type Field } from './fields.js';
 import { defaultValue, fabPresetSchema, issueWhere, specSchema, substratePresetSchema } from './schema.js';
 import { closest, suggestion } from './suggest.js';
 import { unknownKeys } from './unknown-keys.js';
@@ -220,6 +220,16 @@ function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): S
   const placeValues = fill(PLACE_FIELDS, group('place'), {}, 'place', defaulted);
   const place = { x: placeValues.x as number, y: placeValues.y as number, rotationDeg: placeValues.rotation_deg as number, mirror: placeValues.mirror as boolean };
 
+  const tol = fill(TOLERANCE_FIELDS, group('tolerance'), {}, 'tolerance', defaulted);
+  const tolerance = {
+    width: tol.width as number,
+    erFraction: tol.er_fraction as number,
+    heightFraction: tol.height_fraction as number,
+    copperFraction: tol.copper_fraction as number,
+    runs: tol.runs as number,
+    seed: tol.seed as number,
+  };
+
   const area = values.area as Region | undefined;
   const keepouts = top('keepouts') as readonly Region[];
   const clearance = top('clearance') as number;
@@ -258,6 +268,7 @@ function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): S
     keepouts,
     clearance,
     sweep: { start, stop, points },
+    tolerance,
     defaulted,
   };
 }

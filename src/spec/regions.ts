@@ -56,7 +56,9 @@ export function parseRegion(value: unknown, where: string): Region {
   const [first, last] = [given[0], given[given.length - 1]];
   const closed = given.length > 3 && first !== undefined && last !== undefined && first[0] === last[0] && first[1] === last[1];
   const points = closed ? given.slice(0, -1) : given;
-  if (twiceArea(points) === 0) fail('spec.invalid', `${where}.polygon`, 'encloses no area (all points on one line)');
+  // The copper stage works on a 1 nm grid (src/geometry/polygon.ts GRID); judge the outline as it will be drawn there.
+  const onGrid = points.map(([x, y]): Point => [Math.round(x / 1e-9), Math.round(y / 1e-9)]);
+  if (twiceArea(onGrid) === 0) fail('spec.invalid', `${where}.polygon`, 'encloses no area (all points on one line, to the nearest nanometre)');
   return { kind: 'polygon', points };
 }
 

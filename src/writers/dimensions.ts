@@ -33,7 +33,7 @@ function reach(b: Bounds, p: Point, n: Point): number {
 }
 
 /** Dimensions of one stub: each straight segment of its centre-line, and its width at the end. */
-function stubDimensions(f: Feature, all: Bounds, gap: number): Dimension[] {
+function stubDimensions(f: Feature, all: Bounds, gap: number, pads: readonly Feature[]): Dimension[] {
   const r = f.rect;
   const path = f.path ?? [];
   if (path.length < 2) return [];
@@ -63,7 +63,12 @@ function stubDimensions(f: Feature, all: Bounds, gap: number): Dimension[] {
   const d: Point = [(end[0] - before[0]) / len, (end[1] - before[1]) / len];
   const across: Point = [-d[1], d[0]];
   const text = segments > 1 ? `${label('W', f.width)}, L total ${mmLabel(f.length)} mm` : label('W', f.width);
-  out.push({ from: along(end, across, -f.width / 2), to: along(end, across, f.width / 2), normal: d, offset: reach(all, end, d) + gap, label: text });
+  // A U's end points back at the series line: its width sits just past the end (and any via pads),
+  // in the space the fold keeps clear, not beyond all the copper on the far side.
+  const first = path[1]!;
+  const returns = dot(d, sub(first, path[0]!)) < 0;
+  const offset = returns ? Math.max(0, ...pads.map((p) => dot(sub([p.rect.xmax, p.rect.ymax], end), d)), ...pads.map((p) => dot(sub([p.rect.xmin, p.rect.ymin], end), d))) + 0.5 * gap : reach(all, end, d) + gap;
+  out.push({ from: along(end, across, -f.width / 2), to: along(end, across, f.width / 2), normal: d, offset, label: text });
   return out;
 }
 
@@ -80,7 +85,12 @@ export function featureDimensions(g: BoardGeometry, h = labelHeight(g.bounds)): 
       if (f.length > 0) dims.push({ from: [r.xmin, r.ymin], to: [r.xmax, r.ymin], normal: [0, -1], offset: r.ymin - local.ymin + gap, label: label('L', f.length) });
       const x = f.kind === 'line' ? r.xmin : r.xmax;
       dims.push({ from: [x, r.ymin], to: [x, r.ymax], normal: [f.kind === 'line' ? -1 : 1, 0], offset: gap * 2, label: label('W', f.width) });
-    } else if (f.kind === 'stub') dims.push(...stubDimensions(f, local, gap));
+    } else if (f.kind === 'stub') {
+      // The via pads at this stub's end: those within a pad of its last centre-line point.
+      const end = f.path?.at(-1);
+      const pads = end ? g.features.filter((p) => p.kind === 'pad' && Math.hypot((p.rect.xmin + p.rect.xmax) / 2 - end[0], (p.rect.ymin + p.rect.ymax) / 2 - end[1]) <= p.length + f.width * 2 + 1e-3) : [];
+      dims.push(...stubDimensions(f, local, gap, pads));
+    }
   }
   const map = placementMap(g.placement ?? IDENTITY_PLACEMENT);
   const origin = map([0, 0]);

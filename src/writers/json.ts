@@ -72,6 +72,16 @@ export function designRecord(input: DesignRecordInput): unknown {
       s11_db_at_f0: physical.s11DbAtF0,
       band_10db_hz: response.band10dB ? [response.band10dB.low, response.band10dB.high] : null,
     },
+    tolerance: response.tolerance
+      ? {
+          runs: response.tolerance.runs,
+          seed: response.tolerance.seed,
+          s11_db_at_f0: response.tolerance.s11DbAtF0,
+          minimum_frequency_hz: response.tolerance.minimumFrequency,
+          yield_10db: response.tolerance.yield10dB,
+          envelope_p95_db: { frequencies_hz: response.tolerance.frequencies, s11_db: response.tolerance.envelopeP95Db },
+        }
+      : null,
     fit: {
       fits: input.fit.fits,
       margin_m: Number.isFinite(input.fit.margin) ? input.fit.margin : null,

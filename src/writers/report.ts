@@ -76,6 +76,18 @@ export function writeReport(input: ReportInput): Artifact {
       : '- return loss does not reach 10 dB at the design frequency',
   );
   out.push('- the load impedance is held constant over the band; a real device changes with frequency.');
+  const tol = response.tolerance;
+  if (tol) {
+    const t = spec.tolerance;
+    out.push('', '### Fabrication spread', '');
+    out.push(
+      `${tol.runs} seeded runs (seed ${tol.seed}), uniform within ± width ${mm(t.width)} mm (every line), εr ${trimmed(t.erFraction * 100, 2)} %, height ${trimmed(t.heightFraction * 100, 2)} %, copper ${trimmed(t.copperFraction * 100, 2)} %; drawn lengths kept.`,
+      '',
+    );
+    out.push(`- |S11| at f0: median ${fixed(tol.s11DbAtF0.median, 1)} dB, 95th percentile ${fixed(tol.s11DbAtF0.p95, 1)} dB, worst ${fixed(tol.s11DbAtF0.worst, 1)} dB`);
+    out.push(`- return loss ≥ 10 dB at f0 in ${fixed(tol.yield10dB * 100, 1)} % of runs`);
+    out.push(`- frequency of the return-loss peak: ${ghz(tol.minimumFrequency.p5)} to ${ghz(tol.minimumFrequency.p95)} (5th to 95th percentile)`);
+  }
   out.push(`- footprint: x ${mm(geometry.bounds.xmin)} to ${mm(geometry.bounds.xmax)} mm, y ${mm(geometry.bounds.ymin)} to ${mm(geometry.bounds.ymax)} mm`);
   out.push('');
   out.push('## Placement', '');

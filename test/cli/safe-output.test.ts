@@ -185,12 +185,11 @@ describe('design output through main()', () => {
       return result;
     };
     const forward = outputs(names);
-    const backward = outputs([...names].reverse());
-    const again = outputs([names[0]!, names[0]!, ...names]);
+    // Reversed, and the last one run twice into its folder (a rerun replaces the files with equal bytes).
+    const backward = outputs([...names].reverse().concat(names[0]!));
     for (const n of names) {
       expect(Object.keys(forward[n]!).length).toBeGreaterThanOrEqual(6);
       expect(backward[n]).toEqual(forward[n]);
-      expect(again[n]).toEqual(forward[n]);
     }
   });
 });

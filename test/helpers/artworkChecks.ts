@@ -3,6 +3,8 @@
 import { createRequire } from 'node:module';
 import { circlePolygon, islandArea, pointInRing, polygonArea } from '../../src/geometry/index.js';
 import type { Artifact, BoardGeometry, FabRules, Ring } from '../../src/seams.js';
+import type { DesignRun } from '../../src/design.js';
+import type { LayoutVariant } from '../../src/layoutSearch.js';
 import { writeDxf } from '../../src/writers/dxf.js';
 import { writeGerberCopper, writeGerberKeepout, writeGerberProfile } from '../../src/writers/gerber.js';
 import { writeDrill } from '../../src/writers/drill.js';
@@ -150,5 +152,18 @@ export async function artworkProblems(g: BoardGeometry, meta: ArtworkMeta): Prom
   const layers = Object.keys(back.dxf.tables.layer?.layers ?? {});
   for (const l of ['COPPER_TOP', 'DRILL', 'PORTS', 'DIMENSIONS', ...(g.area ? ['AREA'] : []), ...(g.keepouts.length > 0 ? ['KEEPOUT'] : [])])
     if (!layers.includes(l)) out.push(`layout.dxf: layer ${l} missing`);
+  return out;
+}
+
+/** The chosen layout and the first variant of each other fold the search built. */
+export function geometriesToCheck(run: DesignRun): LayoutVariant[] {
+  const chosen = run.variants.find((v) => v.geometry === run.geometry);
+  const seen = new Set(chosen ? [chosen.fold] : []);
+  const out = chosen ? [chosen] : [];
+  for (const v of run.variants) {
+    if (seen.has(v.fold)) continue;
+    seen.add(v.fold);
+    out.push(v);
+  }
   return out;
 }

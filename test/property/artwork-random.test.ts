@@ -11,25 +11,11 @@ import { describe, expect, it } from 'vitest';
 import { designFromText, type DesignRun } from '../../src/design.js';
 import { TunestripError } from '../../src/diagnostics.js';
 import { artworkMeta } from '../../src/writers/index.js';
-import type { LayoutVariant } from '../../src/layoutSearch.js';
 import { PRESETS, randomSpecs } from '../helpers/randomSpecs.js';
-import { artworkProblems, geometryProblems } from '../helpers/artworkChecks.js';
+import { artworkProblems, geometriesToCheck, geometryProblems } from '../helpers/artworkChecks.js';
 
 const N = 60;
 const SEED = 20261202;
-
-/** The chosen layout and the first variant of each other fold that was built. */
-export function geometriesToCheck(run: DesignRun): LayoutVariant[] {
-  const chosen = run.variants.find((v) => v.geometry === run.geometry);
-  const seen = new Set(chosen ? [chosen.fold] : []);
-  const out = chosen ? [chosen] : [];
-  for (const v of run.variants) {
-    if (seen.has(v.fold)) continue;
-    seen.add(v.fold);
-    out.push(v);
-  }
-  return out;
-}
 
 describe(`artwork of ${N} seeded random specs (seed ${SEED})`, () => {
   const specs = randomSpecs(SEED, N);

@@ -160,9 +160,15 @@ describe('input validation', () => {
   ] as const)('%s = %s throws RangeError', (key, value) => {
     expect(() => layoutStubMatch({ ...base, [key]: value })).toThrow(RangeError);
   });
-  it('rejects empty or repeated sides', () => {
-    expect(() => layoutStubMatch({ ...base, stubSides: [] })).toThrow(RangeError);
+  it('rejects repeated sides', () => {
     expect(() => layoutStubMatch({ ...base, stubSides: ['left', 'left'] })).toThrow(RangeError);
+  });
+  it('draws a plain line, one island without a stub, when no side is given (already matched)', () => {
+    const g = layoutStubMatch({ ...base, stubSides: [] });
+    expect(g.copper).toHaveLength(1);
+    expect(g.features.map((f) => f.id)).toEqual(['series', 'lead-source']);
+    // Area of the bare line: width × (series + lead), exact rectangle.
+    expect(polygonArea(g.copper[0]!.outline)).toBeCloseTo(base.seriesWidth * (base.seriesLength + base.leadLength), 15);
   });
   it('rejects a non-finite keep-out', () => {
     expect(() => layoutStubMatch({ ...base, keepouts: [{ kind: 'circle', center: [0, Number.NaN], radius: 1 }] })).toThrow(RangeError);

@@ -121,7 +121,7 @@ describe('defaults', () => {
         'target', 'line_z0', 'stub_z0', 'stub', 'style', 'stub_side',
         'substrate.copper', 'substrate.tan_delta', 'substrate.roughness', 'substrate.conductivity',
         'fab.min_trace', 'fab.min_space', 'fab.via_drill', 'fab.via_pad', 'fab.min_annular_ring', 'fab.copper_to_edge', 'fab.vias_per_stub',
-        'leads.load', 'leads.source', 'place.x', 'place.y', 'place.rotation_deg', 'place.mirror', 'keepouts', 'clearance', 'sweep.start', 'sweep.stop', 'sweep.points',
+        'leads.load', 'leads.source', 'place.x', 'place.y', 'place.rotation_deg', 'place.mirror', 'keepouts', 'clearance', 'sweep.start', 'sweep.stop', 'sweep.points', 'tolerance.width', 'tolerance.er_fraction', 'tolerance.height_fraction', 'tolerance.copper_fraction', 'tolerance.runs', 'tolerance.seed',
       ].sort(),
     );
   });
