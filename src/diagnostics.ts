@@ -28,6 +28,7 @@ export const CATALOGUE = {
   'spec.bare-number': { severity: 'warning', hint: 'a number without a unit is read in SI units (Hz, ohm, S/m); write the unit to be sure' },
   'design.via-near-junction': { severity: 'warning', hint: 'a via close to the junction is the least certain part of a short-stub match' },
   'design.refine-failed': { severity: 'warning', hint: 'the physical network refinement did not converge' },
+  'design.out-of-model': { severity: 'error', hint: 'the request lies where the closed-form models do not hold' },
   'fab.min-space': { severity: 'error', hint: 'two pieces of copper are closer than the fabrication minimum space' },
   'fab.copper-to-edge': { severity: 'error', hint: 'copper is closer to the board edge than the fabrication minimum' },
 } as const satisfies Record<string, { severity: Severity; hint: string }>;

@@ -123,6 +123,22 @@ function writeDurably(path: string, text: string): void {
   }
 }
 
+/**
+ * mkdir -p, one level at a time. Node 20's own recursive mkdir never returns where the kernel answers
+ * ENOENT for a folder whose parent exists (e.g. under /proc); here every failure is an error.
+ */
+function makeFolders(dir: string): void {
+  const missing: string[] = [];
+  let at = dir;
+  while (!existsSync(at)) {
+    missing.unshift(at);
+    const parent = dirname(at);
+    if (parent === at) break;
+    at = parent;
+  }
+  for (const folder of missing) mkdirSync(folder);
+}
+
 /** The marker lists the files a run wrote; only plain names are taken from it. */
 function markerFiles(marker: string): string[] {
   return readFileSync(marker, 'utf8')
@@ -181,7 +197,7 @@ function writeInto(dir: string, artifacts: readonly Artifact[], options: { reado
       throw new IoError(`${dir} exists and was not made by tunestrip; choose another --out or pass --force`);
     }
   } else {
-    mkdirSync(dir, { recursive: true });
+    makeFolders(dir);
   }
   // Claim the folder, listing old and new names, before any artifact is renamed into it.
   const written = artifacts.map((a) => a.path);

@@ -4,7 +4,8 @@
 import yargs, { type Argv } from 'yargs';
 import { join } from 'node:path';
 import { TunestripError, hasErrors, type Diagnostic } from '../diagnostics.js';
-import { designFromText } from '../design.js';
+import { design, designFromText } from '../design.js';
+import { parseSpec } from '../spec/index.js';
 import { solveSingleStub } from '../solve/index.js';
 import { parseImpedance, parseQuantity } from '../units.js';
 import { analyseMicrostrip, synthesizeMicrostrip } from '../physical/microstrip/index.js';
@@ -133,8 +134,11 @@ function runDesign(args: Args, io: Io, version: string): number {
   const specPath = String(args.spec);
   const text = io.readText(specPath, MAX_SPEC_BYTES);
   const presets = { substrates: io.readPresets('substrates'), fab: io.readPresets('fab') };
-  const run = designFromText(text, presets, { version }, specPath);
-  for (const d of run.diagnostics) if (d.severity !== 'error' && d.severity !== 'info') io.stderr(`${diagnosticLine(d)}\n`);
+  // Parse first and show its warnings (unknown keys, bare numbers) even when the design then fails.
+  const parsed = parseSpec(text, presets, specPath);
+  for (const d of parsed.diagnostics) if (d.severity === 'warning') io.stderr(`${diagnosticLine(d)}\n`);
+  const run = design(parsed.spec, { version }, parsed.diagnostics);
+  for (const d of run.diagnostics.slice(parsed.diagnostics.length)) if (d.severity === 'warning') io.stderr(`${diagnosticLine(d)}\n`);
   const errors = run.diagnostics.filter((d) => d.severity === 'error');
   if (hasErrors(run.diagnostics) && args['allow-drc'] !== true) {
     for (const d of errors) io.stderr(`tunestrip: ${d.where}: ${d.message}\n`);
@@ -181,8 +185,8 @@ function runFit(args: Args, io: Io, version: string): number {
 function runSolve(args: Args, io: Io): number {
   const load = parseImpedance(args.load, 'load');
   const target = parseImpedance(args.target, 'target');
-  const lineZ0 = parseQuantity(args['line-z0'], 'impedance', 'line-z0');
-  const stubZ0 = args['stub-z0'] === undefined ? lineZ0 : parseQuantity(args['stub-z0'], 'impedance', 'stub-z0');
+  const lineZ0 = positiveImpedance(args['line-z0'], 'line-z0');
+  const stubZ0 = args['stub-z0'] === undefined ? lineZ0 : positiveImpedance(args['stub-z0'], 'stub-z0');
   const style = args.style === 'balanced' ? 'balanced' : 'single';
   const ideal = solveSingleStub({ load, target, lineZ0, stubZ0, style });
   if (args.json === true) {
@@ -224,7 +228,7 @@ function runLine(args: Args, io: Io): number {
   const line =
     args.z0 !== undefined
       ? synthesizeMicrostrip(positiveImpedance(args.z0), substrate, frequency)
-      : analyseMicrostrip(positiveLength(args.width), substrate, frequency);
+      : analyseMicrostrip(widthInRange(positiveLength(args.width), substrate.height), substrate, frequency);
   for (const w of line.warnings) io.stderr(`${diagnosticLine(w)}\n`);
   if (args.json === true) {
     const lossDbPerM = ((line.alphaConductor + line.alphaDielectric) * 20) / Math.LN10;
@@ -251,10 +255,17 @@ function runLine(args: Args, io: Io): number {
   return 0;
 }
 
-function positiveImpedance(v: unknown): number {
-  const z = parseQuantity(v, 'impedance', 'z0');
-  if (!(z > 0) || !Number.isFinite(z)) throw new IoError('--z0: must be a positive impedance in ohms');
+function positiveImpedance(v: unknown, name = 'z0'): number {
+  const z = parseQuantity(v, 'impedance', name);
+  if (!(z > 0) || !Number.isFinite(z)) throw new IoError(`--${name}: must be a positive impedance in ohms`);
   return z;
+}
+
+/** The line models are fitted for w/h within about 0.01–100; far outside, the numbers mean nothing. */
+function widthInRange(width: number, height: number): number {
+  const u = width / height;
+  if (u < 1e-4 || u > 1e4) throw new IoError(`--width: w/h = ${u.toExponential(2)} is far outside the microstrip models (0.01 to 100)`);
+  return width;
 }
 
 function positiveLength(v: unknown): number {

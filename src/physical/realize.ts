@@ -15,11 +15,11 @@ import type {
   ViaSpec,
 } from '../seams.js';
 import { synthesizeMicrostrip } from './microstrip/index.js';
-import { openEndExtensionKJK, viaInductanceGoldfarbPucel } from './discontinuities/index.js';
+import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceGoldfarbPucel } from './discontinuities/index.js';
 import { inputImpedance } from '../math/lines.js';
 import { newton2 } from '../math/newton.js';
 import { junctionAt, mismatch, physicalInputImpedance, type JunctionView } from '../analysis/physicalNetwork.js';
-import { mm } from '../format.js';
+import { mm, trimmed } from '../format.js';
 
 /** Sources named in every correction record. */
 export const MODEL_NAMES = {
@@ -71,11 +71,39 @@ export interface JunctionPlan {
 export function planJunction(spec: Spec, lines: SizedLines, stubCount: 0 | 1 | 2): JunctionPlan {
   const leadLength = (stubCount === 0 ? 0 : lines.stub.width / 2) + spec.leads.source;
   const probe: MatchCopper = copperOf(lines, stubCount === 0 ? 1 : stubCount, 'open', 0, 0, leadLength);
+  if (stubCount !== 0) requireLumpedJunction(spec, lines);
   const junction = stubCount === 0 ? { da: 0, db: 0, d2: lines.series.width / 2, n2a: 1, n2b: 1, susceptance: 0 } : junctionAt(probe, spec.substrate, spec.frequency);
   // Move the target back through the lossless lead: a negative length inverts the transformation.
   const electrical = leadLength - junction.db;
   const targetAtJunction = inputImpedance(spec.target, lines.series.z0, complex(0, lines.series.beta), -electrical);
   return { junction, leadLength, targetAtJunction };
+}
+
+/**
+ * The T-junction model (and single-stub theory with it) treats the junction as lumped. Above the
+ * first higher-order mode of the wider line, f_p = 0.4·Z0/h (GHz, h in mm; Hammerstad 1981), or
+ * where its transformer ratio collapses, no closed-form correction holds: refuse with the reason.
+ */
+function requireLumpedJunction(spec: Spec, lines: SizedLines): void {
+  const tee = tJunctionHammerstad(lines.series, lines.series, lines.stub, spec.substrate, spec.frequency);
+  const broken = tee.warnings.find((w) => /higher-order-mode|broken down/.test(w.message));
+  const sizes = [tee.da, tee.db, tee.d2].map(Math.abs);
+  if (broken || sizes.some((v) => !Number.isFinite(v) || v > lines.series.wavelength / 4)) {
+    const fp = (0.4 * Math.min(lines.series.z0, lines.stub.z0)) / (spec.substrate.height * 1e3);
+    fail(
+      'design.out-of-model',
+      'frequency',
+      `at ${trimmed(spec.frequency / 1e9, 4)} GHz the ${mm(Math.max(lines.series.width, lines.stub.width))} mm wide lines on ${mm(spec.substrate.height)} mm are too wide for a lumped T-junction (first higher-order mode near ${trimmed(fp, 3)} GHz, Hammerstad 1981); use a thinner substrate or higher line impedances`,
+    );
+  }
+}
+
+/** Whole half wavelengths to add so `length` reaches `minimum`; more than a few means the request is unbuildable. */
+const MAX_HALF_WAVES = 4;
+function halfWavesToReach(length: number, minimum: number, wavelength: number): number {
+  if (length >= minimum) return 0;
+  const n = Math.ceil((minimum - length) / (wavelength / 2));
+  return Number.isFinite(n) ? n : Number.POSITIVE_INFINITY;
 }
 
 function copperOf(
@@ -174,9 +202,10 @@ function realizeBranch(
   let seriesLength = solution.positionWl * series.wavelength + j.da;
   // The stub must clear the load plane and any load lead the spec asks for.
   const seriesMinimum = spec.leads.load + stub.width / 2;
-  while (seriesLength < seriesMinimum) {
-    seriesLength += series.wavelength / 2;
-    seriesCorrections.push({ model: MODEL_NAMES.halfWave, delta: series.wavelength / 2 });
+  const seriesHalves = halfWavesToReach(seriesLength, seriesMinimum, series.wavelength);
+  if (seriesHalves > 0 && seriesHalves <= MAX_HALF_WAVES) {
+    seriesLength += (seriesHalves * series.wavelength) / 2;
+    seriesCorrections.push({ model: MODEL_NAMES.halfWave, delta: (seriesHalves * series.wavelength) / 2 });
   }
 
   const stubCorrections: Correction[] = [{ model: MODEL_NAMES.junction, delta: j.d2 - series.width / 2 }];
@@ -195,9 +224,10 @@ function realizeBranch(
   const stubMinimum = minimumStub(spec, solution.termination);
   const viaClearance = VIA_JUNCTION_CLEARANCE_WL * stub.wavelength;
   const wantClearance = solution.termination === 'short' && spec.stub === 'best';
-  while (stubLength < stubMinimum || (wantClearance && stubLength < viaClearance)) {
-    stubLength += stub.wavelength / 2;
-    stubCorrections.push({ model: MODEL_NAMES.halfWave, delta: stub.wavelength / 2 });
+  const stubHalves = halfWavesToReach(stubLength, Math.max(stubMinimum, wantClearance ? viaClearance : 0), stub.wavelength);
+  if (stubHalves > 0 && stubHalves <= MAX_HALF_WAVES) {
+    stubLength += (stubHalves * stub.wavelength) / 2;
+    stubCorrections.push({ model: MODEL_NAMES.halfWave, delta: (stubHalves * stub.wavelength) / 2 });
   }
   if (solution.termination === 'short' && stubLength < viaClearance) {
     notes.push(diagnostic('design.via-near-junction', 'stub', `the via sits ${mm(stubLength)} mm from the line, under ${VIA_JUNCTION_CLEARANCE_WL} λ; it interacts with the junction more than the model predicts: check by full-wave simulation, or use stub: best`));
@@ -212,6 +242,9 @@ function realizeBranch(
     const g = mismatch(zin, spec.target);
     return [g.re, g.im];
   };
+  if (seriesHalves > MAX_HALF_WAVES || stubHalves > MAX_HALF_WAVES) {
+    return { solution, copper: start, seriesCorrections, stubCorrections, residual: Number.POSITIVE_INFINITY, converged: false, notes };
+  }
   const result = newton2(residualOf, [seriesLength, stubLength], {
     step: [series.wavelength * 1e-7, stub.wavelength * 1e-7],
     tolerance: 1e-10,

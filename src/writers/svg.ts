@@ -64,7 +64,7 @@ function dimensionElements(d: Dimension, h: number): { svg: string[]; bounds: Bo
     ext(d.from, a),
     ext(d.to, b),
     `<line x1="${sx(a[0])}" y1="${sy(a[1])}" x2="${sx(b[0])}" y2="${sy(b[1])}" class="dim" marker-start="url(#dim-arrow)" marker-end="url(#dim-arrow)"/>`,
-    `<text x="${sx(labelAt[0])}" y="${sy(labelAt[1])}" class="dim-label"${rotate}>${escapeXml(d.label)}</text>`,
+    `<text x="${sx(labelAt[0])}" y="${sy(labelAt[1])}" dy="0.35em" class="dim-label"${rotate}>${escapeXml(d.label)}</text>`,
   ];
   const reachOut = 1.5 * h;
   const bounds = ringBounds([
@@ -172,7 +172,7 @@ export function writeSvg(g: BoardGeometry, meta: ArtworkMeta): Artifact {
     `.drill-cross{stroke:${COLOURS.drillEdge};stroke-width:${n(h / 30)};fill:none}`,
     `.dim,.ext{stroke:${COLOURS.dimension};stroke-width:${n(h / 20)};fill:none}`,
     `.ext{stroke-width:${n(h / 30)}}`,
-    `.dim-label{fill:${COLOURS.dimension};font-size:${n(h)}px;text-anchor:middle;dominant-baseline:middle}`,
+    `.dim-label{fill:${COLOURS.dimension};font-size:${n(h)}px;text-anchor:middle}`,
     `.port,.port-plane{stroke:${COLOURS.port};stroke-width:${n(h / 10)};fill:none}`,
     `.port-plane{stroke-dasharray:${n(h / 3)} ${n(h / 6)}}`,
     `.port-label{fill:${COLOURS.port};font-size:${n(h)}px;font-weight:bold;text-anchor:middle}`,

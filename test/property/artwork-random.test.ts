@@ -27,9 +27,10 @@ describe(`artwork of ${N} seeded random specs (seed ${SEED})`, () => {
     try {
       run = designFromText(s.text, PRESETS, { version: 'prop' });
     } catch (e) {
-      // A random request may have no buildable branch for its termination: a reported error, not a crash.
+      // A random request may have no buildable branch for its termination, or lines too wide for a
+      // lumped junction at its frequency: a reported error, not a crash.
       expect(e).toBeInstanceOf(TunestripError);
-      expect((e as TunestripError).diagnostic.code).toBe('solve.no-passive-solution');
+      expect(['solve.no-passive-solution', 'design.out-of-model']).toContain((e as TunestripError).diagnostic.code);
       return;
     }
     designed.push(run);

@@ -276,7 +276,7 @@ describe('pipeline fuzz (seeded): spec text → design → artifacts', () => {
   it('finite copper, response and files, or a one-line error', () => {
     fc.assert(
       fc.property(specObject, fc.boolean(), (spec, asJson) => checkPipeline(asJson ? JSON.stringify(spec) : YAML.stringify(spec))),
-      { seed: SEED, numRuns: 60 },
+      { seed: SEED, numRuns: 40 },
     );
   });
 
@@ -288,7 +288,7 @@ describe('pipeline fuzz (seeded): spec text → design → artifacts', () => {
       fc.property(fc.double({ min: -1e-6, max: 1e-6, noNaN: true }), fc.double({ min: -1e-6, max: 1e-6, noNaN: true }), fc.constantFrom('open', 'short', 'best'), (dr, dx, stub) =>
         checkPipeline(base(impedanceText(complex(50 + dr, dx)), `stub: ${stub}\n`)),
       ),
-      { seed: SEED, numRuns: 40 },
+      { seed: SEED, numRuns: 20 },
     );
   });
 
