@@ -72,9 +72,16 @@ function requireFiniteRegion(name: string, region: Region): void {
   if (!numbers.every(Number.isFinite)) throw new RangeError(`${name} has a non-finite coordinate`);
 }
 
+/** Narrowest copper the layout draws (m). */
+export const MIN_DRAWN_WIDTH = 1e-6;
+
 function validate(input: StubLayoutInput): void {
   requireLength('seriesWidth', input.seriesWidth, true);
   requireLength('stubWidth', input.stubWidth, true);
+  // Widths must survive the 1 nm board grid as real copper: a micrometre is far below any etch.
+  for (const [name, w] of [['seriesWidth', input.seriesWidth], ['stubWidth', input.stubWidth]] as const) {
+    if (w < MIN_DRAWN_WIDTH) throw new RangeError(`${name} must be at least ${MIN_DRAWN_WIDTH} m, got ${w}`);
+  }
   requireLength('seriesLength', input.seriesLength, false);
   requireLength('leadLength', input.leadLength, false);
   requireLength('stubLength', input.stubLength, false);

@@ -1,0 +1,88 @@
+// How far each discontinuity model moves tunestrip's own predicted return-loss minimum for the copper
+// as drawn: the physical network of a design folder evaluated with all models, and with the
+// T-junction, open-end or via model switched off in turn. Read beside the full-wave offsets in
+// results.json: an element whose model moves the minimum by much more than the full-wave error is
+// doing its job. For a short stub it also prints where the minimum moves when the via inductance is
+// scaled (a smaller drill in the Goldfarb–Pucel formula stands in for a larger L), so a full-wave
+// offset can be read as an equivalent via inductance. Diagnostic only (not part of tunestrip, not run by npm test).
+//
+//   npx tsx scripts/fullwave/model-sensitivity.ts OUT_DIR [OUT_DIR ...]
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { complex, abs } from '../../src/math/complex.js';
+import { ALL_MODELS, mismatch, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
+import type { MatchCopper, Substrate } from '../../src/seams.js';
+import { viaInductanceGoldfarbPucel } from '../../src/physical/discontinuities/index.js';
+
+interface Line { readonly role: string; readonly width_m: number; readonly length_m: number }
+interface DesignRecord {
+  readonly name: string;
+  readonly frequency_hz: number;
+  readonly load_ohm: readonly [number, number];
+  readonly target_ohm: readonly [number, number];
+  readonly substrate: { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number; readonly roughness_m: number; readonly conductivity_s_per_m: number };
+  readonly solution: { readonly termination: 'open' | 'short'; readonly style: string };
+  readonly lines: readonly Line[];
+  readonly vias: readonly { readonly drill_m: number; readonly pad_m: number }[];
+}
+
+const variants: Readonly<Record<string, NetworkModels>> = {
+  all: ALL_MODELS,
+  'no junction': { ...ALL_MODELS, junction: false },
+  'no open end': { ...ALL_MODELS, openEnd: false },
+  'no via': { ...ALL_MODELS, via: false },
+};
+
+for (const folder of process.argv.slice(2)) {
+  const d = JSON.parse(readFileSync(join(folder, 'design.json'), 'utf8')) as DesignRecord;
+  const line = (role: string): Line => d.lines.find((l) => l.role === role)!;
+  const substrate: Substrate = {
+    er: d.substrate.er,
+    height: d.substrate.height_m,
+    copper: d.substrate.copper_m,
+    tanDelta: d.substrate.tan_delta,
+    roughness: d.substrate.roughness_m,
+    conductivity: d.substrate.conductivity_s_per_m,
+  };
+  const copper: MatchCopper = {
+    seriesWidth: line('series').width_m,
+    stubWidth: line('stub').width_m,
+    seriesLength: line('series').length_m,
+    stubLength: line('stub').length_m,
+    leadLength: line('lead').length_m,
+    termination: d.solution.termination,
+    stubCount: d.solution.style === 'balanced' ? 2 : 1,
+    ...(d.solution.termination === 'short' && d.vias[0] ? { vias: { drill: d.vias[0].drill_m, pad: d.vias[0].pad_m, count: d.vias.length / (d.solution.style === 'balanced' ? 2 : 1) } } : {}),
+  };
+  const load = complex(d.load_ohm[0], d.load_ohm[1]);
+  const target = complex(d.target_ohm[0], d.target_ohm[1]);
+  const f0 = d.frequency_hz;
+  const out: { [k: string]: { f_min_hz: number; offset_percent: number; s11_db_at_f0: number } } = {};
+  const minimum = (c: MatchCopper, models: NetworkModels) => {
+    let best = { f: f0, g: Infinity };
+    const gammaAt = (f: number) => abs(mismatch(physicalInputImpedance(c, load, substrate, f, models), target));
+    for (let k = 0; k <= 4000; k++) {
+      const f = f0 * (0.7 + (0.6 * k) / 4000);
+      const g = gammaAt(f);
+      if (g < best.g) best = { f, g };
+    }
+    return { f_min_hz: best.f, offset_percent: (100 * (best.f - f0)) / f0, s11_db_at_f0: 20 * Math.log10(gammaAt(f0)) };
+  };
+  for (const [label, models] of Object.entries(variants)) out[label] = minimum(copper, models);
+  if (copper.vias) {
+    const vias = copper.vias;
+    const l0 = viaInductanceGoldfarbPucel(substrate.height, vias.drill);
+    for (const ratio of [1.25, 1.5, 1.75, 2]) {
+      // The drill whose Goldfarb–Pucel inductance is `ratio` × the drawn via's (bisection; L falls as the drill grows).
+      let lo = vias.drill * 1e-3;
+      let hi = vias.drill;
+      for (let i = 0; i < 60; i++) {
+        const mid = Math.sqrt(lo * hi);
+        if (viaInductanceGoldfarbPucel(substrate.height, mid) > ratio * l0) lo = mid;
+        else hi = mid;
+      }
+      out[`via L x${ratio}`] = minimum({ ...copper, vias: { ...vias, drill: hi } }, ALL_MODELS);
+    }
+  }
+  console.log(JSON.stringify({ name: d.name, ...out }));
+}

@@ -1,0 +1,429 @@
+#!/usr/bin/python3
+"""Independent full-wave (FDTD) check of a tunestrip design folder with openEMS.
+
+Usage:
+    /usr/bin/python3 scripts/fullwave/simulate.py OUT_DIR [OUT_DIR ...]
+        [--spec SPEC ...] [--results scripts/fullwave/results.json] [--work /tmp/fullwave]
+        [--refine 2] [--thick] [--threads 1] [--reuse] [--no-write]
+
+What it does, per design folder (the output of `tunestrip design`):
+  1. Reads design.json (substrate, frequency, load, target, lines, ports, vias) and the copper as
+     drawn: the closed COPPER_TOP LWPOLYLINEs of layout.dxf (read with ezdxf).
+  2. Builds an openEMS model: substrate box (εr, height, tanδ as a conductivity at f0), PEC ground
+     (the z = 0 boundary), the copper polygons as zero-thickness PEC sheets at z = h (or, with
+     --thick, solids of the stackup's copper thickness), each via as a PEC cylinder (drill
+     diameter) from the ground to the copper.
+  3. Extends the line beyond each reference plane (load plane and source plane) by a straight
+     feed of the same width, with an openEMS microstrip port at its far end. Two runs, one per
+     excited port. The port's own line impedance and propagation constant (measured in the run)
+     move voltage and current from the measurement plane to the design's reference plane.
+  4. From the two runs, the 2-port impedance matrix of the copper: Z = V · I⁻¹ (both excitations),
+     so imperfect port terminations do not matter. The load port is then terminated in software
+     with the design's constant load impedance (tunestrip's assumption), and the reflection at the
+     source port against the target gives |S11(f)|.
+  5. Reports the frequency of the |S11| minimum, |S11(f0)| and the offset in % of f0, and writes
+     them into results.json (one entry per design, keyed by name).
+
+Nothing here is part of tunestrip; it needs Debian's openems + python3-openems and python3-ezdxf.
+"""
+from __future__ import annotations
+
+import argparse
+import json
+import math
+import multiprocessing as mp
+import os
+import shutil
+import subprocess
+import sys
+import time
+
+import numpy as np
+
+# openEMS 0.0.35's ports.py still uses np.float / np.int, which NumPy 1.24 removed.
+if not hasattr(np, 'float'):
+    np.float = float  # type: ignore[attr-defined]
+if not hasattr(np, 'int'):
+    np.int = int  # type: ignore[attr-defined]
+
+import ezdxf  # noqa: E402
+from CSXCAD import ContinuousStructure  # noqa: E402
+from CSXCAD.SmoothMeshLines import SmoothMeshLines  # noqa: E402
+from openEMS import openEMS  # noqa: E402
+from openEMS.physical_constants import C0, EPS0  # noqa: E402
+
+UNIT = 1e-3  # drawing unit: mm
+
+# Mesh and run settings (the README explains them).
+CELLS_PER_WAVELENGTH = 40      # max cell ≤ λ(f_max in the substrate)/40
+EDGE_CELLS_PER_WIDTH = 8       # fine cell at strip edges = narrowest width / 8 (thirds rule)
+CELLS_ACROSS_WIDTH = 4         # inside the copper's extent, cells ≤ narrowest width / 4
+SUBSTRATE_CELLS = 5            # cells across the substrate height
+VIA_CELLS_PER_RADIUS = 2       # fine cells across a via radius
+GROWTH = 1.4                   # neighbouring-cell ratio
+END_CRITERIA = 1e-5            # energy decay (−50 dB) ends a run
+BAND = (0.8, 1.2)              # evaluation band, × f0
+BAND_POINTS = 1601
+
+
+def openems_version() -> str:
+    try:
+        out = subprocess.run(['dpkg-query', '-W', '-f=${Version}', 'openems'], capture_output=True, text=True, check=True)
+        return 'openEMS ' + out.stdout.strip() + ' (Debian package openems)'
+    except (OSError, subprocess.CalledProcessError):
+        return 'openEMS (version unknown)'
+
+
+# ---------------------------------------------------------------------------------------------
+# Geometry: the copper as drawn
+
+
+def read_design(folder: str) -> dict:
+    with open(os.path.join(folder, 'design.json'), encoding='utf8') as f:
+        design = json.load(f)
+    doc = ezdxf.readfile(os.path.join(folder, 'layout.dxf'))
+    polygons = []
+    for e in doc.modelspace().query('LWPOLYLINE[layer=="COPPER_TOP"]'):
+        if not e.closed:
+            raise SystemExit(f'{folder}: an open COPPER_TOP polyline; the copper must be closed outlines')
+        pts = [(float(p[0]), float(p[1])) for p in e.get_points('xy')]
+        if any(abs(p[2]) > 1e-12 for p in e.get_points('xyb')):
+            raise SystemExit(f'{folder}: bulged polyline segments are not supported')
+        polygons.append(pts)
+    if not polygons:
+        raise SystemExit(f'{folder}: no COPPER_TOP polylines in layout.dxf')
+    design['_polygons_mm'] = polygons
+    return design
+
+
+def signed_area(pts):
+    return 0.5 * sum(pts[i][0] * pts[(i + 1) % len(pts)][1] - pts[(i + 1) % len(pts)][0] * pts[i][1] for i in range(len(pts)))
+
+
+def edge_lines(polygons, fine, skip_x):
+    """Mesh lines for the copper edges by the thirds rule: r/3 inside the metal, 2r/3 outside."""
+    xs, ys = [], []
+    for pts in polygons:
+        orient = 1.0 if signed_area(pts) > 0 else -1.0
+        n = len(pts)
+        for i in range(n):
+            (x1, y1), (x2, y2) = pts[i], pts[(i + 1) % n]
+            dx, dy = x2 - x1, y2 - y1
+            if abs(dx) < 1e-9 and abs(dy) > 1e-9:  # vertical edge, x = const
+                if any(abs(x1 - s) < 1e-6 for s in skip_x):
+                    continue  # the line continues into the port feed here: not an edge
+                out = math.copysign(1.0, dy * orient)  # outward normal (dy, −dx)·orient
+                xs += [x1 - out * fine / 3, x1 + out * 2 * fine / 3]
+            elif abs(dy) < 1e-9 and abs(dx) > 1e-9:  # horizontal edge, y = const
+                out = math.copysign(1.0, -dx * orient)
+                ys += [y1 - out * fine / 3, y1 + out * 2 * fine / 3]
+            else:  # a short chord of a pad arc: keep its ends
+                xs += [x1]
+                ys += [y1]
+    return xs, ys
+
+
+def merge(lines, tol):
+    """Sorted lines with near-duplicates (closer than tol) merged, so no sliver cells form."""
+    out = []
+    for v in sorted(lines):
+        if out and v - out[-1] < tol:
+            out[-1] = 0.5 * (out[-1] + v)
+        else:
+            out.append(v)
+    return out
+
+
+def plan_model(design: dict, refine: float = 1.0, thick: bool = False) -> dict:
+    """Everything both runs share: materials, copper, feeds, ports, mesh lines (mm).
+
+    `refine` divides every cell size (a mesh-convergence knob). `thick` draws the design's copper
+    as a solid of the stackup's copper thickness (the feeds stay zero-thickness sheets; the step at
+    the reference plane is tiny) instead of a zero-thickness sheet.
+    """
+    sub = design['substrate']
+    f0 = design['frequency_hz']
+    h = sub['height_m'] / UNIT
+    er = sub['er']
+    ports = {p['role']: p for p in design['ports']}
+    for p in ports.values():
+        if round(p['direction_deg']) % 180 != 0 or abs(p['y_m']) > 1e-12:
+            raise SystemExit('ports must lie on the x axis and face along it')
+    widths = [l['width_m'] / UNIT for l in design['lines']]
+    w_line = ports['load']['width_m'] / UNIT
+    w_min = min(widths)
+    f_max = BAND[1] * f0 * 1.25
+    res = C0 / (f_max * math.sqrt(er)) / UNIT / CELLS_PER_WAVELENGTH / refine
+    fine = min(w_min / EDGE_CELLS_PER_WIDTH, h / 2) / refine
+    substrate_cells = max(2, round(SUBSTRATE_CELLS * refine))
+    via_cells = max(1, round(VIA_CELLS_PER_RADIUS * refine))
+
+    # Feeds: straight line of the port's width beyond each reference plane. The measurement plane
+    # sits `meas` beyond the reference plane, well clear of the junction's local fields; the
+    # excitation and its 50 Ω feed resistor sit at the far end, `meas` further out.
+    meas = max(6 * h, 3 * w_line, 4.0)
+    feed_len = 2 * meas + 2 * res
+    x_load = ports['load']['x_m'] / UNIT
+    x_src = ports['source']['x_m'] / UNIT
+    feeds = {
+        'source': {'x_ref': x_src, 'x_far': x_src + feed_len * (1 if x_src > x_load else -1), 'width': ports['source']['width_m'] / UNIT},
+        'load': {'x_ref': x_load, 'x_far': x_load - feed_len * (1 if x_src > x_load else -1), 'width': w_line},
+    }
+    polys = design['_polygons_mm']
+    ymin = min(p[1] for poly in polys for p in poly)
+    ymax = max(p[1] for poly in polys for p in poly)
+    margin_xy = max(10 * h, 3 * w_line, 8.0)
+    air = max(12 * h, 8.0)
+    xlo = min(f['x_far'] for f in feeds.values()) - 3 * res
+    xhi = max(f['x_far'] for f in feeds.values()) + 3 * res
+    ylo, yhi = ymin - margin_xy, ymax + margin_xy
+
+    xs, ys = edge_lines(polys, fine, skip_x=[x_load, x_src])
+    for f in feeds.values():
+        xs += [f['x_far'], f['x_ref']]
+    vias = [{'x': v['x_m'] / UNIT, 'y': v['y_m'] / UNIT, 'r': v['drill_m'] / 2 / UNIT} for v in design.get('vias', [])]
+    tol = fine / 4
+    via_x, via_y = [], []
+    for v in vias:
+        step = v['r'] / via_cells
+        tol = min(tol, step / 2)
+        via_x += list(v['x'] + step * np.arange(-via_cells, via_cells + 1))
+        via_y += list(v['y'] + step * np.arange(-via_cells, via_cells + 1))
+        # the via's own lines win over edge lines that fall among them
+        xs = [x for x in xs if abs(x - v['x']) > v['r'] + step / 2]
+        ys = [y for y in ys if abs(y - v['y']) > v['r'] + step / 2]
+    # Inside the copper's extent the cells stay at most a quarter of the narrowest strip, so each
+    # strip has several cells across; outside they grow to the wavelength limit.
+    inner = min(res, w_min / CELLS_ACROSS_WIDTH / refine)
+    core_x = SmoothMeshLines(merge(xs + via_x, tol), inner, GROWTH)
+    core_y = SmoothMeshLines(merge(ys + via_y, tol), inner, GROWTH)
+    mesh_x = SmoothMeshLines(merge(list(core_x), tol / 2) + [xlo, xhi], res, GROWTH)
+    mesh_y = SmoothMeshLines(merge(list(core_y), tol / 2) + [ylo, yhi], res, GROWTH)
+    z_sub = list(np.linspace(0, h, substrate_cells + 1))
+    t = sub['copper_m'] / UNIT if thick else 0.0
+    if thick and t <= 0:
+        raise SystemExit('--thick needs a design with copper thickness > 0')
+    mesh_z = SmoothMeshLines(z_sub + ([h + t] if thick else []) + [h + air], res, GROWTH)
+    kappa = 2 * math.pi * f0 * EPS0 * er * sub['tan_delta']
+    return {
+        'f0': f0, 'h': h, 't': t, 'er': er, 'kappa': kappa, 'polys': polys, 'vias': vias, 'feeds': feeds, 'meas': meas,
+        'mesh': {'x': [float(v) for v in mesh_x], 'y': [float(v) for v in mesh_y], 'z': [float(v) for v in mesh_z]},
+        'res': res, 'fine': fine, 'refine': refine, 'substrate_cells': substrate_cells, 'box': (xlo, xhi, ylo, yhi, h + air),
+    }
+
+
+# ---------------------------------------------------------------------------------------------
+# One FDTD run
+
+
+def run_one(args):
+    plan, excite_role, sim_path, threads = args
+    f0 = plan['f0']
+    fdtd = openEMS(EndCriteria=END_CRITERIA, NrTS=2_000_000)
+    # Gaussian pulse centred on f0, −20 dB at f0 ± 0.6·f0: covers the band with margin.
+    fdtd.SetGaussExcite(f0, 0.6 * f0)
+    fdtd.SetBoundaryCond(['MUR', 'MUR', 'MUR', 'MUR', 'PEC', 'MUR'])
+    csx = ContinuousStructure()
+    fdtd.SetCSX(csx)
+    grid = csx.GetGrid()
+    grid.SetDeltaUnit(UNIT)
+    grid.SetLines('x', plan['mesh']['x'])
+    grid.SetLines('y', plan['mesh']['y'])
+    grid.SetLines('z', plan['mesh']['z'])
+    xlo, xhi, ylo, yhi, _ = plan['box']
+    h = plan['h']
+
+    substrate = csx.AddMaterial('substrate', epsilon=plan['er'], kappa=plan['kappa'])
+    substrate.AddBox([xlo, ylo, 0], [xhi, yhi, h], priority=0)
+    copper = csx.AddMetal('copper')
+    t = plan['t']
+    for poly in plan['polys']:
+        pts = np.array(poly).T
+        if t > 0:
+            copper.AddLinPoly(pts, 'z', h, t, priority=10)
+        else:
+            copper.AddPolygon(pts, 'z', h, priority=10)
+    for v in plan['vias']:
+        copper.AddCylinder([v['x'], v['y'], 0], [v['x'], v['y'], h + t], v['r'], priority=10)
+
+    ports = {}
+    for number, role in ((1, 'source'), (2, 'load')):
+        f = plan['feeds'][role]
+        w = f['width']
+        feed_len = abs(f['x_far'] - f['x_ref'])
+        ports[role] = fdtd.AddMSLPort(
+            number, copper, [f['x_far'], -w / 2, h], [f['x_ref'], w / 2, 0], 'x', 'z',
+            excite=1 if role == excite_role else 0,
+            MeasPlaneShift=feed_len - plan['meas'], FeedShift=0, Feed_R=50, priority=10,
+        )
+    if os.path.isdir(sim_path):
+        shutil.rmtree(sim_path)
+    os.makedirs(sim_path)
+    t0 = time.time()
+    fdtd.Run(sim_path, cleanup=True, verbose=0, numThreads=threads)
+    seconds = time.time() - t0
+
+    freq = np.linspace(BAND[0] * f0, BAND[1] * f0, BAND_POINTS)
+    out = {'seconds': seconds}
+    for role, port in ports.items():
+        f = plan['feeds'][role]
+        # Move V and I from the measurement plane to the reference plane with the port line's own
+        # measured β and impedance (the openEMS port does this when given the shift from its start).
+        port.CalcPort(sim_path, freq, ref_plane_shift=abs(f['x_far'] - f['x_ref']))
+        out[role] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+    out['freq'] = freq
+    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
+    return out
+
+
+# ---------------------------------------------------------------------------------------------
+# Post-processing
+
+
+def impedance_matrix(run_src, run_load):
+    """Z such that V = Z·I at both reference planes, from the two excitations (currents into the copper)."""
+    n = len(run_src['freq'])
+    z = np.zeros((n, 2, 2), complex)
+    for k in range(n):
+        v = np.array([[run_src['source']['v'][k], run_load['source']['v'][k]], [run_src['load']['v'][k], run_load['load']['v'][k]]])
+        i = np.array([[run_src['source']['i'][k], run_load['source']['i'][k]], [run_src['load']['i'][k], run_load['load']['i'][k]]])
+        z[k] = v @ np.linalg.inv(i)
+    return z
+
+
+def terminated_reflection(z, load, target):
+    zin = z[:, 0, 0] - z[:, 0, 1] * z[:, 1, 0] / (z[:, 1, 1] + load)
+    return (zin - target) / (zin + np.conj(target))
+
+
+def minimum_of(freq, mag_db):
+    k = int(np.argmin(mag_db))
+    if 0 < k < len(freq) - 1:  # parabola through the three lowest samples
+        y0, y1, y2 = mag_db[k - 1], mag_db[k], mag_db[k + 1]
+        den = y0 - 2 * y1 + y2
+        frac = 0.5 * (y0 - y2) / den if den > 0 else 0.0
+        return float(freq[k] + frac * (freq[1] - freq[0])), float(y1), k
+    return float(freq[k]), float(mag_db[k]), k
+
+
+def model_minimum(folder):
+    """The minimum of tunestrip's own predicted response (response.s1p), for comparison."""
+    fs, gs = [], []
+    scale = 1.0
+    with open(os.path.join(folder, 'response.s1p'), encoding='utf8') as f:
+        for line in f:
+            s = line.strip()
+            if not s or s.startswith('!'):
+                continue
+            if s.startswith('#'):
+                unit = s.split()[1].upper()
+                scale = {'HZ': 1, 'KHZ': 1e3, 'MHZ': 1e6, 'GHZ': 1e9}[unit]
+                if 'RI' not in s.upper().split():
+                    return None
+                continue
+            a = s.split()
+            fs.append(float(a[0]) * scale)
+            gs.append(abs(complex(float(a[1]), float(a[2]))))
+    k = int(np.argmin(gs))
+    return fs[k]
+
+
+def simulate(folder, work, threads, reuse, refine=2.0, thick=False):
+    design = read_design(folder)
+    name = design['name']
+    plan = plan_model(design, refine, thick)
+    tag = name + ('' if refine == 1.0 else f'-refine{refine:g}') + ('-thick' if thick else '')
+    jobs = [(plan, role, os.path.join(work, tag, 'excite-' + role), threads) for role in ('source', 'load')]
+    if reuse and all(os.path.exists(os.path.join(j[2], 'ports.npy')) for j in jobs):
+        runs = [np.load(os.path.join(j[2], 'ports.npy'), allow_pickle=True).item() for j in jobs]
+    else:
+        with mp.get_context('fork').Pool(2) as pool:
+            runs = pool.map(run_one, jobs)
+    run_src, run_load = runs
+    freq = run_src['freq']
+    z = impedance_matrix(run_src, run_load)
+    load = complex(*design['load_ohm'])
+    target = complex(*design['target_ohm'])
+    gamma = terminated_reflection(z, load, target)
+    mag_db = 20 * np.log10(np.abs(gamma))
+    f0 = design['frequency_hz']
+    f_min, s_min, _ = minimum_of(freq, mag_db)
+    k0 = int(np.argmin(np.abs(freq - f0)))
+    reciprocity = float(np.max(np.abs(z[:, 0, 1] - z[:, 1, 0]) / np.abs(z[:, 0, 1])))
+    k_f0 = 2 * math.pi * f0 / C0
+    port_line = {}
+    for role in ('source', 'load'):
+        beta = run_src[role]['beta'][k0] if role == 'source' else run_load[role]['beta'][k0]
+        zl = run_src[role]['zl'][k0] if role == 'source' else run_load[role]['zl'][k0]
+        port_line[role] = {'eps_eff': float((np.real(beta) / k_f0) ** 2), 'z0_ohm': float(np.real(zl))}
+    lines = {l['role']: l for l in design['lines']}
+    model_f = model_minimum(folder)
+    nx, ny, nz = (len(plan['mesh'][a]) for a in 'xyz')
+    result = {
+        'name': name,
+        'frequency_hz': f0,
+        'load_ohm': design['load_ohm'],
+        'target_ohm': design['target_ohm'],
+        'termination': design['solution']['termination'],
+        'copper_model': 'solid, the stackup thickness' if thick else 'zero-thickness sheet',
+        'copper': {
+            role: {'width_m': l['width_m'], 'length_m': l['length_m'], 'z0_ohm': l['z0_ohm'], 'eps_eff': l['eps_eff']}
+            for role, l in lines.items()
+        },
+        'vias': [{'x_m': v['x_m'], 'y_m': v['y_m'], 'drill_m': v['drill_m']} for v in design.get('vias', [])],
+        'f_min_hz': f_min,
+        'offset_percent': 100 * (f_min - f0) / f0,
+        's11_db_at_f0': float(mag_db[k0]),
+        's11_db_at_min': s_min,
+        'model_f_min_hz': model_f,
+        'fdtd_port_line_at_f0': port_line,
+        'reciprocity_error': reciprocity,
+        'mesh': {
+            'cells': [nx - 1, ny - 1, nz - 1],
+            'max_cell_mm': plan['res'],
+            'edge_cell_mm': plan['fine'],
+            'substrate_cells': plan['substrate_cells'],
+            'refine': plan['refine'],
+            'copper_thickness_mm': plan['t'],
+            'min_cell_mm': float(min(np.min(np.diff(plan['mesh'][a])) for a in 'xyz')),
+        },
+        'run_seconds': round(max(r['seconds'] for r in runs), 1),
+        'solver': openems_version(),
+    }
+    np.savez(os.path.join(work, tag, 'sweep.npz'), freq=freq, s11_db=mag_db, z=z)
+    return result
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.split('\n')[0])
+    ap.add_argument('folders', nargs='+', help='tunestrip design output folders')
+    ap.add_argument('--spec', action='append', default=[], help='spec file each folder was made from (same order), recorded in results.json')
+    ap.add_argument('--results', default=os.path.join(os.path.dirname(os.path.abspath(__file__)), 'results.json'))
+    ap.add_argument('--work', default='/tmp/fullwave')
+    ap.add_argument('--threads', type=int, default=1, help='threads per run (two runs go in parallel)')
+    ap.add_argument('--refine', type=float, default=2.0, help='divide every cell size by this (2 is the recorded setting; 1 and 1.5 for a convergence check)')
+    ap.add_argument('--thick', action='store_true', help="draw the design's copper with the stackup's thickness")
+    ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
+    ap.add_argument('--no-write', action='store_true', help='print only; leave results.json alone')
+    args = ap.parse_args()
+    results = {'solver': openems_version(), 'designs': []}
+    if os.path.exists(args.results):
+        with open(args.results, encoding='utf8') as f:
+            results = json.load(f)
+    for n, folder in enumerate(args.folders):
+        r = simulate(folder, args.work, args.threads, args.reuse, args.refine, args.thick)
+        if n < len(args.spec):
+            r['spec'] = os.path.relpath(args.spec[n], os.path.join(os.path.dirname(os.path.abspath(__file__)), '..', '..'))
+        print(json.dumps({k: r[k] for k in ('name', 'f_min_hz', 'offset_percent', 's11_db_at_f0', 's11_db_at_min', 'fdtd_port_line_at_f0', 'reciprocity_error', 'mesh', 'run_seconds')}, indent=1), flush=True)
+        if not args.no_write:
+            results['solver'] = openems_version()
+            same = lambda d: d['name'] == r['name'] and d.get('copper_model') == r['copper_model']  # noqa: E731
+            results['designs'] = [d for d in results['designs'] if not same(d)] + [r]
+            results['designs'].sort(key=lambda d: (d['name'], d.get('copper_model', '')))
+            with open(args.results, 'w', encoding='utf8') as f:
+                json.dump(results, f, indent=2)
+                f.write('\n')
+
+
+if __name__ == '__main__':
+    main()
