@@ -12,9 +12,8 @@ export function artworkMeta(input: DesignRecordInput): ArtworkMeta {
     name: spec.name,
     version: input.version,
     notes: [
-      `tunestrip ${input.version}: ${spec.name}`,
-      `f0 ${trimmed(spec.frequency / 1e9, 6)} GHz, load ${impedanceText(spec.load.re, spec.load.im)} ohm, target ${impedanceText(spec.target.re, spec.target.im)} ohm`,
-      'units mm; verify by EM simulation or measurement before use',
+      `design ${spec.name}: f0 ${trimmed(spec.frequency / 1e9, 6)} GHz, load ${impedanceText(spec.load.re, spec.load.im)} ohm, target ${impedanceText(spec.target.re, spec.target.im)} ohm`,
+      'verify by EM simulation or measurement before use',
     ],
   };
 }
