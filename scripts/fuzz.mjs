@@ -179,10 +179,11 @@ async function runTarget(target, runs, seed, progressFile) {
   const um = 1e-6;
   const layoutInput = fc
     .record({
-      seriesWidth: fc.double({ min: 1e-3, max: 1e6, noNaN: true }),
+      // Widths in µm from the layout's smallest drawn width (1 µm) up.
+      seriesWidth: fc.double({ min: 1, max: 1e6, noNaN: true }),
       seriesLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e6, noNaN: true })),
       leadLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e6, noNaN: true })),
-      stubWidth: fc.double({ min: 1e-3, max: 1e6, noNaN: true }),
+      stubWidth: fc.double({ min: 1, max: 1e6, noNaN: true }),
       stubLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e-3, noNaN: true }), fc.double({ min: 0, max: 1e6, noNaN: true })),
       sides: fc.constantFrom(['left'], ['right'], ['left', 'right']),
       short: fc.boolean(),

@@ -21,6 +21,8 @@ export interface DesignRun {
   readonly response: ResponseSet;
   readonly geometry: BoardGeometry;
   readonly fit: FitReport & { readonly changed: readonly string[] };
+  /** How the chosen stub is drawn: 'straight' or a fold such as 'L-source'. */
+  readonly fold: string;
   /** Every layout tried, most preferred first (the `fit` command prints them). */
   readonly variants: readonly LayoutVariant[];
   readonly artifacts: readonly Artifact[];
@@ -55,8 +57,8 @@ export function design(spec: Spec, options: DesignOptions, parseDiagnostics: rea
   const drc = checkDesignRules(geometry, spec.fab, spec.area);
   const diagnostics = [...parseDiagnostics, ...physical.diagnostics, ...fitDiagnostics, ...drc];
   const fit = { ...chosen.fit, changed: chosen.changed };
-  const artifacts = writeArtifacts({ spec, ideal: chosen.ideal, physical, response, geometry, diagnostics, fit, version: options.version });
-  return { spec, lines, junction: chosen.junction, ideal: chosen.ideal, physical, response, geometry, fit, variants, artifacts, diagnostics };
+  const artifacts = writeArtifacts({ spec, ideal: chosen.ideal, physical, response, geometry, diagnostics, fit, fold: chosen.fold, version: options.version });
+  return { spec, lines, junction: chosen.junction, ideal: chosen.ideal, physical, response, geometry, fit, fold: chosen.fold, variants, artifacts, diagnostics };
 }
 
 /** Parse a spec file's text and run the whole pipeline on it. */

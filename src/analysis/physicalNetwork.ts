@@ -6,7 +6,7 @@ import { add, complex, div, inv, scale, type Complex } from '../math/complex.js'
 import { cascade, inputImpedanceOf, lineAbcd, shuntAdmittanceAbcd, transformerAbcd, type Abcd } from '../math/network.js';
 import type { MatchCopper, Substrate } from '../seams.js';
 import { analyseMicrostrip, propagationConstant } from '../physical/microstrip/index.js';
-import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceGoldfarbPucel, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
+import { crossJunctionFitted, openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
 import { inputImpedance, openStubAdmittance, shortStubAdmittance } from '../math/lines.js';
 
 /** Which discontinuity models take part; all on for the physical design, all off gives plain lines. */
@@ -19,9 +19,6 @@ export interface NetworkModels {
 
 export const ALL_MODELS: NetworkModels = { junction: true, openEnd: true, via: true, loss: true };
 
-/** Ideal junction planes for the balanced cross: see physics.md §4.2, full-wave observation. */
-const CROSS_STUB_PLANE_SHIFT = 1 / 3;
-
 /** Plating thickness assumed in the via barrel for its resistance (common practice, no source: 25 µm). */
 const VIA_PLATING = 25e-6;
 
@@ -32,11 +29,9 @@ export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency:
   const main = analyseMicrostrip(copper.seriesWidth, substrate, frequency);
   const stub = analyseMicrostrip(copper.stubWidth, substrate, frequency);
   const tee = tJunctionHammerstad(main, main, stub, substrate, frequency);
-  // A cross is not two tees: each stub of a cross is electrically shorter. Until a fitted cross model
-  // exists, move the stub plane out by a third of the stub width, which the project's full-wave
-  // runs showed lands balanced matches within 0.7 % (physics.md §4.2, two cases only).
-  const d2 = copper.stubCount === 2 ? tee.d2 + CROSS_STUB_PLANE_SHIFT * copper.stubWidth : tee.d2;
-  return { da: tee.da, db: tee.db, d2, n2a: tee.n2a, n2b: tee.n2b, susceptance: tee.susceptance };
+  // Balanced stubs meet the line in a cross, which is not two tees.
+  const j = copper.stubCount === 2 ? crossJunctionFitted(tee, stub, substrate) : tee;
+  return { da: j.da, db: j.db, d2: j.d2, n2a: j.n2a, n2b: j.n2b, susceptance: j.susceptance };
 }
 
 /**
@@ -97,9 +92,9 @@ function stubAdmittance(
   return inv(inputImpedance(viaImpedance(copper.vias, substrate, frequency), z0, gamma, length));
 }
 
-/** Impedance of `count` vias in parallel (Goldfarb–Pucel 1991 inductance; mutual coupling ignored). */
+/** Impedance of `count` vias in parallel (Goldfarb–Pucel 1991 inductance with the full-wave factor; mutual coupling ignored). */
 export function viaImpedance(vias: { readonly drill: number; readonly count: number }, substrate: Substrate, frequency: number): Complex {
-  const l = viaInductanceGoldfarbPucel(substrate.height, vias.drill);
+  const l = viaInductanceDesign(substrate.height, vias.drill);
   const r = viaResistance(substrate.height, vias.drill, VIA_PLATING, substrate.conductivity, frequency);
   return scale(complex(r, 2 * Math.PI * frequency * l), 1 / vias.count);
 }

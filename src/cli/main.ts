@@ -141,7 +141,7 @@ function runDesign(args: Args, io: Io, version: string): number {
   for (const d of run.diagnostics.slice(parsed.diagnostics.length)) if (d.severity === 'warning') io.stderr(`${diagnosticLine(d)}\n`);
   const errors = run.diagnostics.filter((d) => d.severity === 'error');
   if (hasErrors(run.diagnostics) && args['allow-drc'] !== true) {
-    for (const d of errors) io.stderr(`tunestrip: ${d.where}: ${d.message}\n`);
+    for (const d of errors) io.stderr(`tunestrip: ${d.message.startsWith(`${d.where}:`) ? d.message : `${d.where}: ${d.message}`}\n`);
     io.stderr('tunestrip: nothing written; fix the design or pass --allow-drc\n');
     return 1;
   }

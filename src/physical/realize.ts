@@ -15,9 +15,10 @@ import type {
   ViaSpec,
 } from '../seams.js';
 import { synthesizeMicrostrip } from './microstrip/index.js';
-import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceGoldfarbPucel } from './discontinuities/index.js';
+import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign } from './discontinuities/index.js';
 import { inputImpedance } from '../math/lines.js';
 import { newton2 } from '../math/newton.js';
+import { MIN_DRAWN_WIDTH } from '../geometry/layout.js';
 import { junctionAt, mismatch, physicalInputImpedance, type JunctionView } from '../analysis/physicalNetwork.js';
 import { mm, trimmed } from '../format.js';
 
@@ -25,7 +26,7 @@ import { mm, trimmed } from '../format.js';
 export const MODEL_NAMES = {
   junction: 'T-junction reference planes (Hammerstad 1981)',
   openEnd: 'open-end extension (Kirschning-Jansen-Koster 1981)',
-  via: 'via inductance (Goldfarb-Pucel 1991)',
+  via: 'via inductance (Goldfarb-Pucel 1991 x 1.5, from full-wave runs)',
   halfWave: 'half wavelength added to keep the copper buildable',
   refine: 'solve on the physical network (junction ratio and susceptance, dispersion, loss)',
 } as const;
@@ -51,6 +52,12 @@ export function sizeLines(spec: Spec): SizedLines {
   const diagnostics: Diagnostic[] = [...series.warnings.map((d) => ({ ...d, where: 'line_z0' }))];
   if (stub !== series) diagnostics.push(...stub.warnings.map((d) => ({ ...d, where: 'stub_z0' })));
   for (const [where, line, z0] of [['line_z0', series, spec.lineZ0], ['stub_z0', stub, spec.stubZ0]] as const) {
+    if (![line.width, line.z0, line.epsEff, line.wavelength, line.beta].every(Number.isFinite)) {
+      fail('design.out-of-model', where, `the microstrip models give no finite answer for a ${trimmed(z0, 3)} Ω line on this substrate (εr ${trimmed(spec.substrate.er, 3)}, h ${mm(spec.substrate.height)} mm) at ${trimmed(spec.frequency / 1e9, 4)} GHz`);
+    }
+    if (line.width < MIN_DRAWN_WIDTH) {
+      fail('fab.too-narrow', where, `a ${trimmed(z0, 3)} Ω line on this substrate would be ${line.width.toExponential(2)} m wide, far below any etchable copper; use a lower impedance or a thicker substrate`);
+    }
     if (line.width < spec.fab.minTrace) {
       diagnostics.push(
         diagnostic('fab.too-narrow', where, `a ${z0} Ω line on this substrate is ${mm(line.width)} mm wide, below fab.min_trace ${mm(spec.fab.minTrace)} mm; use a lower impedance or a thicker substrate`),
@@ -90,10 +97,11 @@ function requireLumpedJunction(spec: Spec, lines: SizedLines): void {
   const sizes = [tee.da, tee.db, tee.d2].map(Math.abs);
   if (broken || sizes.some((v) => !Number.isFinite(v) || v > lines.series.wavelength / 4)) {
     const fp = (0.4 * Math.min(lines.series.z0, lines.stub.z0)) / (spec.substrate.height * 1e3);
+    const near = Number.isFinite(fp) ? ` (first higher-order mode near ${trimmed(fp, 3)} GHz, Hammerstad 1981)` : '';
     fail(
       'design.out-of-model',
       'frequency',
-      `at ${trimmed(spec.frequency / 1e9, 4)} GHz the ${mm(Math.max(lines.series.width, lines.stub.width))} mm wide lines on ${mm(spec.substrate.height)} mm are too wide for a lumped T-junction (first higher-order mode near ${trimmed(fp, 3)} GHz, Hammerstad 1981); use a thinner substrate or higher line impedances`,
+      `at ${trimmed(spec.frequency / 1e9, 4)} GHz the ${mm(Math.max(lines.series.width, lines.stub.width))} mm wide lines on ${mm(spec.substrate.height)} mm are too wide for a lumped T-junction${near}; use a thinner substrate or higher line impedances`,
     );
   }
 }
@@ -183,7 +191,7 @@ function viaOf(spec: Spec): ViaSpec {
     drill: spec.fab.viaDrill,
     pad: spec.fab.viaPad,
     count: spec.fab.viasPerStub,
-    inductance: viaInductanceGoldfarbPucel(spec.substrate.height, spec.fab.viaDrill) / spec.fab.viasPerStub,
+    inductance: viaInductanceDesign(spec.substrate.height, spec.fab.viaDrill) / spec.fab.viasPerStub,
   };
 }
 
@@ -317,7 +325,9 @@ function assemble(
 }
 
 function matchedLine(spec: Spec, lines: SizedLines, ideal: IdealSolution, diagnostics: Diagnostic[]): PhysicalDesign {
-  const c = copperOf(lines, 0, 'open', Math.max(spec.leads.load, 0), 0, spec.leads.source);
+  // A plain line still needs copper to land on: at least one line width long in all.
+  const source = Math.max(spec.leads.source, lines.series.width - spec.leads.load);
+  const c = copperOf(lines, 0, 'open', Math.max(spec.leads.load, 0), 0, source);
   const zin = physicalInputImpedance(c, spec.load, spec.substrate, spec.frequency);
   diagnostics.push(diagnostic('solve.already-matched', 'load', 'the load already presents the target: no stub is needed, a plain line is drawn'));
   const trivial: StubSolution = ideal.solutions[0] ?? {

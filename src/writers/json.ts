@@ -11,6 +11,8 @@ export interface DesignRecordInput {
   readonly geometry: BoardGeometry;
   readonly diagnostics: readonly Diagnostic[];
   readonly fit: { readonly fits: boolean; readonly margin: number; readonly limitedBy: string; readonly changed: readonly string[] };
+  /** How the chosen stub is drawn: straight or folded (e.g. 'L-source'). */
+  readonly fold: string;
   readonly version: string;
 }
 
@@ -82,6 +84,11 @@ export function designRecord(input: DesignRecordInput): unknown {
           envelope_p95_db: { frequencies_hz: response.tolerance.frequencies, s11_db: response.tolerance.envelopeP95Db },
         }
       : null,
+    layout: {
+      fold: input.fold,
+      stub_sides: physical.stubSides,
+      placement: { x_m: spec.place.x, y_m: spec.place.y, rotation_deg: spec.place.rotationDeg, mirror: spec.place.mirror },
+    },
     fit: {
       fits: input.fit.fits,
       margin_m: Number.isFinite(input.fit.margin) ? input.fit.margin : null,
