@@ -22,7 +22,8 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
     const shift = sec.length - sec.idealLength;
     lines.push(
       `  ${ROLE_LABEL[sec.role].padEnd(12)} width ${mm(sec.width).padStart(7)} mm  length ${mm(sec.length).padStart(8)} mm  (ideal ${mm(sec.idealLength)} mm, ${shift >= 0 ? '+' : ''}${mm(shift)} mm)  Z0 ${fixed(sec.z0, 2)} Ω  εeff ${fixed(sec.epsEff, 3)}`,
-    );
+    );    const steps = sec.corrections.filter((c) => Math.abs(c.delta) >= 5e-7);
+    if (steps.length > 0) lines.push(`  ${''.padEnd(12)} ${steps.map((c) => `${c.delta >= 0 ? '+' : ''}${mm(c.delta)} mm ${shortModel(c.model)}`).join(', ')}`);
   }
   if (physical.via) lines.push(`  via: ${physical.via.count} × ${mm(physical.via.drill)} mm drill, ${mm(physical.via.pad)} mm pad`);
   const b = geometry.bounds;
@@ -42,6 +43,9 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
   lines.push('  verify by EM simulation or measurement before building');
   return `${lines.join('\n')}\n`;
 }
+
+/** The model's name without its source, for the one-line summary (the report keeps the full name). */
+const shortModel = (model: string): string => model.replace(/\s*\(.*\)$/, '');
 
 export function solveTable(ideal: IdealSolution): string {
   const lines: string[] = [];

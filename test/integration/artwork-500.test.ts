@@ -40,10 +40,12 @@ const FOREGROUND_BLUE = 0x33;
 
 /**
  * gerbv 2.9 draws thin regions snapped to whole pixels (seen here: a 0.263 mm line, 6.2 px at
- * 600 dpi, came out 3.2 % short, and 4.8 % long at 1200 dpi), so the narrowest copper needs about
- * 20 pixels across for a 3 % bound: at least 600 dpi (ecosystem.md), more for narrow lines, at most 4800.
+ * 600 dpi, came out 3.2 % short, and 4.8 % long at 1200 dpi; a balanced layout with 0.32 mm copper
+ * at 20 px across came out 3.3 % long), so the narrowest copper gets 30 pixels across for a 3 %
+ * bound: at least 600 dpi (ecosystem.md), more for narrow lines, at most 4800.
  */
-const dpiFor = (narrowestMm: number): number => Math.min(4800, Math.max(600, Math.ceil((25.4 * 20) / narrowestMm / 100) * 100));
+const PIXELS_ACROSS = 30;
+const dpiFor = (narrowestMm: number): number => Math.min(4800, Math.max(600, Math.ceil((25.4 * PIXELS_ACROSS) / narrowestMm / 100) * 100));
 
 interface Written {
   readonly label: string;
