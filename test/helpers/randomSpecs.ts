@@ -1,32 +1,13 @@
 // Seeded random spec files (YAML text) for the artwork property tests: frequency 0.5–20 GHz, load,
 // substrate, fabrication rules, style, termination, side, leads, placement, and sometimes an area
-// and keep-outs around the placed section. Our own scenarios; the generator is a plain
-// mulberry32 (common practice, no source), so a seed always gives the same specs.
-import { readdirSync, readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+// and keep-outs around the placed section. Our own scenarios; the generator is the core's
+// seeded mulberry32 (src/math/random.ts), so a seed always gives the same specs.
 import type { Presets } from '../../src/spec/index.js';
+import { seededUniform } from '../../src/math/random.js';
+import { repoPresets } from './templates.js';
 
-const root = resolve(import.meta.dirname, '..', '..');
+export const PRESETS: Presets = repoPresets();
 
-const folder = (f: string): Record<string, string> =>
-  Object.fromEntries(
-    readdirSync(join(root, 'templates', f))
-      .filter((n) => n.endsWith('.yaml'))
-      .map((n) => [n.replace(/\.yaml$/, ''), readFileSync(join(root, 'templates', f, n), 'utf8')]),
-  );
-
-export const PRESETS: Presets = { substrates: folder('substrates'), fab: folder('fab') };
-
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 export interface RandomSpec {
   readonly index: number;
@@ -37,7 +18,7 @@ const fx = (v: number, d = 3): string => v.toFixed(d);
 
 /** `count` spec texts from `seed`. */
 export function randomSpecs(seed: number, count: number): RandomSpec[] {
-  const r = mulberry32(seed);
+  const r = seededUniform(seed);
   const pick = <T,>(xs: readonly T[]): T => xs[Math.floor(r() * xs.length)]!;
   const between = (lo: number, hi: number): number => lo + (hi - lo) * r();
   const out: RandomSpec[] = [];

@@ -6,18 +6,13 @@
 // belong to other artwork), then holds the recorded full-wave results to the acceptance:
 // the return-loss minimum within ±2 % of f0 and |S11(f0)| ≤ −15 dB.
 import { describe, expect, it } from 'vitest';
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { designFromText } from '../../src/design.js';
+import { repoPresets, repoRoot } from '../helpers/templates.js';
 
-const root = resolve(import.meta.dirname, '..', '..');
-const folder = (f: string) =>
-  Object.fromEntries(
-    readdirSync(join(root, 'templates', f))
-      .filter((n) => n.endsWith('.yaml'))
-      .map((n) => [n.replace(/\.yaml$/, ''), readFileSync(join(root, 'templates', f, n), 'utf8')]),
-  );
-const presets = { substrates: folder('substrates'), fab: folder('fab') };
+const root = repoRoot;
+const presets = repoPresets();
 
 interface RecordedLine {
   readonly width_m: number;
