@@ -51,7 +51,7 @@ describe('Kirschning & Jansen 1982 εe(f) and Jansen & Kirschning 1983 Z0(f)', (
 
   it('JK 1983 R8 has (fn/18.365)^2.745 inside the exponential', () => {
     // Jansen & Kirschning 1983 as restated in physics.md §2.2 [R]. Moving the factor outside the exp
-    // (a known transcription error) changes Z0(f) at fn 20 on εr 9.8 by far more than 1e-4 relative;
+    // (a known copying error) changes Z0(f) at fn 20 on εr 9.8 by far more than 1e-4 relative;
     // the check value 56.9176 Ω (physics.md §2.4 [C]) is met only with the paper's bracket.
     const z = z0JK(1.0, 9.8, 6.57903, epsEffKJ(1.0, 9.8, 6.57903, 20), 49.2888, 20);
     expect(z).toBeCloseTo(56.9176, 2);

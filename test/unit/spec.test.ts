@@ -1,6 +1,7 @@
 import { readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { errorOf } from '../helpers/errors.js';
 import { repoPresets, repoRoot, yamlFiles } from '../helpers/templates.js';
 import { TunestripError } from '../../src/diagnostics.js';
 import { listFields, parseFabPreset, parseSpec, parseSubstratePreset, type Presets } from '../../src/spec/parse.js';
@@ -10,15 +11,6 @@ const root = repoRoot;
 const presets: Presets = repoPresets();
 const examples = yamlFiles('templates/examples');
 
-function errorOf(run: () => unknown): TunestripError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof TunestripError) return error;
-    throw error;
-  }
-  throw new Error('expected a TunestripError, got a result');
-}
 
 const minimal = 'name: t\nfrequency: 2.4 GHz\nload: 30-j10\nsubstrate:\n  er: 4.4\n  height: 1.6 mm\n';
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { errorOf } from '../helpers/errors.js';
 import fc from 'fast-check';
 import { TunestripError } from '../../src/diagnostics.js';
 import { impedanceText } from '../../src/format.js';
@@ -6,15 +7,6 @@ import { SI_PREFIXES, formatEngineering, parseImpedance, parseQuantity, type Dim
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(a), Math.abs(b), Number.MIN_VALUE);
 
-function errorOf(run: () => unknown): TunestripError {
-  try {
-    run();
-  } catch (error) {
-    if (error instanceof TunestripError) return error;
-    throw error;
-  }
-  throw new Error('expected a TunestripError, got a result');
-}
 
 describe('SI prefixes', () => {
   it('match the published table', () => {

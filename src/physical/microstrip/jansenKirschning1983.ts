@@ -3,7 +3,7 @@
 // formulation of microstrip characteristic impedance", AEÜ 37, pp. 108–112, 1983. fn in GHz·mm.
 //
 // R8 is written as in the paper: the (fn/18.365)^2.745 factor is INSIDE the exponential. (At least one
-// public implementation places it outside; that is a transcription error.)
+// public implementation places it outside; that is a copying error.)
 //
 // Numerics: scikit-rf clamps R1, R2 and R6 at 20 before exp(−R) to avoid overflow in its vector code.
 // In IEEE doubles exp(−x) for large x underflows smoothly to 0, so no clamp is used here; the two
