@@ -4,13 +4,11 @@
 // an O(n²) segment-intersection test for simplicity.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { createRequire } from 'node:module';
 import { circlePolygon, layoutStubMatch, padPolygonArea, pointInRing, polygonArea, type StubLayoutInput } from '../../src/geometry/index.js';
 import type { Feature, Ring } from '../../src/seams.js';
 
-// clipper-lib is CommonJS without type definitions: load it with require (ecosystem.md, traps).
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
-const ClipperLib = createRequire(import.meta.url)('clipper-lib') as any;
+// The O(n²) simplicity test and the clipper-lib union are shared with the artwork checks.
+import { clipperLibUnion, selfIntersects } from '../helpers/artworkChecks.js';
 
 const um = 1e-6;
 
@@ -64,38 +62,6 @@ function rectUnionArea(rects: readonly Feature['rect'][]): number {
   return area * 1e-18;
 }
 
-/** Does the ring cross or touch itself? Non-adjacent edges must not meet; adjacent edges meet only at their shared vertex. */
-function selfIntersects(ring: Ring): boolean {
-  const n = ring.length;
-  const P = ring.map(([x, y]) => [BigInt(Math.round(x * 1e9)), BigInt(Math.round(y * 1e9))] as const);
-  const orient = (a: readonly bigint[], b: readonly bigint[], c: readonly bigint[]): number => {
-    const v = (b[0]! - a[0]!) * (c[1]! - a[1]!) - (b[1]! - a[1]!) * (c[0]! - a[0]!);
-    return v > 0n ? 1 : v < 0n ? -1 : 0;
-  };
-  const onSeg = (a: readonly bigint[], b: readonly bigint[], p: readonly bigint[]): boolean =>
-    (p[0]! - a[0]!) * (p[0]! - b[0]!) <= 0n && (p[1]! - a[1]!) * (p[1]! - b[1]!) <= 0n;
-  for (let i = 0; i < n; i++)
-    for (let j = i + 1; j < n; j++) {
-      const adjacent = j === i + 1 || (i === 0 && j === n - 1);
-      if (adjacent) continue;
-      const [a, b, c, d] = [P[i]!, P[(i + 1) % n]!, P[j]!, P[(j + 1) % n]!];
-      const o1 = orient(a, b, c), o2 = orient(a, b, d), o3 = orient(c, d, a), o4 = orient(c, d, b);
-      if (o1 !== o2 && o3 !== o4) return true;
-      if ((o1 === 0 && onSeg(a, b, c)) || (o2 === 0 && onSeg(a, b, d)) || (o3 === 0 && onSeg(c, d, a)) || (o4 === 0 && onSeg(c, d, b))) return true;
-    }
-  return false;
-}
-
-function clipperLibUnion(rings: readonly Ring[]): { count: number; area: number } {
-  const scale = 1e9;
-  const paths = rings.map((r) => r.map(([x, y]) => ({ X: Math.round(x * scale), Y: Math.round(y * scale) })));
-  const c = new ClipperLib.Clipper();
-  c.AddPaths(paths, ClipperLib.PolyType.ptSubject, true);
-  const out = new ClipperLib.Paths();
-  c.Execute(ClipperLib.ClipType.ctUnion, out, ClipperLib.PolyFillType.pftNonZero, ClipperLib.PolyFillType.pftNonZero);
-  const area = out.reduce((s: number, p: unknown) => s + ClipperLib.Clipper.Area(p), 0) / (scale * scale);
-  return { count: out.filter((p: unknown) => ClipperLib.Clipper.Area(p) > 0).length, area };
-}
 
 describe('layoutStubMatch properties (fast-check, seed 42)', () => {
   it('one simple counter-clockwise island, area and bounds as computed independently, vias on their pads', () => {
