@@ -183,14 +183,18 @@ function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): S
   const style = top('style') as StubStyle;
   const stubSide = top('stub_side') as 'left' | 'right';
 
+  // A group's `preset:` names a file whose values the group's own keys override.
+  const presetOf = (family: 'substrates' | 'fab', where: string, name: string | undefined): Values => {
+    if (name === undefined) return {};
+    const loaded = presetValues(readPreset(family, presets, name, where), family, name);
+    diagnostics.push(...loaded.warnings);
+    return loaded.values;
+  };
+
   const substrateValues = group('substrate');
   const substratePresetName = substrateValues.preset as string | undefined;
-  let substratePreset: Values = {};
-  if (substratePresetName !== undefined) {
-    const loaded = presetValues(readPreset('substrates', presets, substratePresetName, 'substrate.preset'), 'substrates', substratePresetName);
-    substratePreset = loaded.values;
-    diagnostics.push(...loaded.warnings);
-  } else {
+  const substratePreset = presetOf('substrates', 'substrate.preset', substratePresetName);
+  if (substratePresetName === undefined) {
     for (const key of ['er', 'height']) {
       if (substrateValues[key] === undefined) {
         const known = Object.keys(presets.substrates).sort();
@@ -201,13 +205,7 @@ function resolve(values: Values, presets: Presets, diagnostics: Diagnostic[]): S
   const substrate = substrateOf(fill(SUBSTRATE_FIELDS, substrateValues, substratePreset, 'substrate', defaulted), substratePresetName);
 
   const fabValues = group('fab');
-  const fabPresetName = fabValues.preset as string | undefined;
-  let fabPreset: Values = {};
-  if (fabPresetName !== undefined) {
-    const loaded = presetValues(readPreset('fab', presets, fabPresetName, 'fab.preset'), 'fab', fabPresetName);
-    fabPreset = loaded.values;
-    diagnostics.push(...loaded.warnings);
-  }
+  const fabPreset = presetOf('fab', 'fab.preset', fabValues.preset as string | undefined);
   const fab = fabOf(fill(FAB_FIELDS, fabValues, fabPreset, 'fab', defaulted));
   if (!(fab.viaPad > fab.viaDrill)) {
     // A pad no larger than its hole leaves no copper around the via: not a design to check, an input to fix.
