@@ -11,10 +11,8 @@ import {
   viaInductanceGoldfarbPucel,
   viaResistance,
 } from '../../src/physical/discontinuities/index.js';
+import { substrate } from '../helpers/substrate.js';
 
-const substrate = (er: number, height: number, copper = 0): Substrate => ({
-  er, height, copper, tanDelta: 0, roughness: 0, conductivity: 5.8e7,
-});
 /** A line record carrying exactly the table's u and εe (the open-end formulas read width and epsEff). */
 const lineWith = (width: number, epsEff: number): LineProperties => ({
   width, frequency: 1e9, z0: 50, z0Static: 50, epsEff, epsEffStatic: epsEff, wavelength: 0.1,

@@ -13,11 +13,11 @@ import {
   z0JK,
   synthesizeMicrostrip,
 } from '../../src/physical/microstrip/index.js';
+import { substrate as smoothSubstrate } from '../helpers/substrate.js';
 
 const RHO_CU = 1.72e-8; // ρ(Cu) used by the physics.md §3.3 tables
-const substrate = (er: number, height: number, copper = 0, extra: Partial<Substrate> = {}): Substrate => ({
-  er, height, copper, tanDelta: 0, roughness: 0, conductivity: 1 / RHO_CU, ...extra,
-});
+const substrate = (er: number, height: number, copper = 0, extra: Partial<Substrate> = {}): Substrate =>
+  smoothSubstrate(er, height, copper, { conductivity: 1 / RHO_CU, ...extra });
 const DB_PER_NP = 20 / Math.LN10; // 8.686 dB per neper
 /** |actual − printed| within one unit of the printed table's last digit (rounding boundaries). */
 const expectNear = (actual: number, printed: number, unit: number): void => {

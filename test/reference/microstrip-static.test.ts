@@ -10,10 +10,8 @@ import {
   wheelerSynthesisU,
   z01HJ,
 } from '../../src/physical/microstrip/index.js';
+import { substrate } from '../helpers/substrate.js';
 
-const substrate = (er: number, height: number, copper = 0): Substrate => ({
-  er, height, copper, tanDelta: 0, roughness: 0, conductivity: 5.8e7,
-});
 /** 1 kHz: dispersion terms are below 1e-10 here, so analysis returns the static model. */
 const STATIC_F = 1e3;
 const rel = (a: number, b: number): number => Math.abs(a / b - 1);
