@@ -13,6 +13,9 @@ export function trimmed(value: number, decimals: number): string {
   return text.includes('.') ? text.replace(/0+$/, '').replace(/\.$/, '') : text;
 }
 
+/** Gigahertz from hertz, trimmed, with its unit: 5.8 GHz. */
+export const ghz = (hz: number): string => `${trimmed(hz / 1e9, 6)} GHz`;
+
 /** Millimetres from metres, trimmed. */
 export const mm = (metres: number, decimals = 3): string => trimmed(metres * 1e3, decimals);
 

@@ -1,10 +1,9 @@
 // Frequency response of the ideal and the physical network over the spec's band.
-import { abs, inv, add, scale, type Complex } from '../math/complex.js';
+import { abs, add, db, inv, scale, type Complex } from '../math/complex.js';
 import type { PhysicalDesign, ResponseSet, Spec } from '../seams.js';
 import { idealInputImpedance as idealLine, idealOpenStubAdmittance, idealShortStubAdmittance } from '../math/lines.js';
 import { admittanceOf } from '../math/network.js';
 import { mismatch, physicalInputImpedance } from './physicalNetwork.js';
-import { db } from '../physical/realize.js';
 import { toleranceRuns } from './tolerance.js';
 import { frequencyGrid } from './grid.js';
 

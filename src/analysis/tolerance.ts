@@ -2,7 +2,7 @@
 // dielectric height, the copper thickness and the etched width (the same bias on every line)
 // uniformly within the spec's tolerances, keeps the drawn lengths, and evaluates the physical
 // network. Seeded, so the same spec gives the same figures.
-import { abs } from '../math/complex.js';
+import { abs, db } from '../math/complex.js';
 import { quantile, seededUniform } from '../math/random.js';
 import type { PhysicalDesign, Spec, ToleranceResult } from '../seams.js';
 import { mismatch, physicalInputImpedance } from './physicalNetwork.js';
@@ -11,7 +11,6 @@ import { frequencyGrid } from './grid.js';
 /** Frequencies per run: coarse enough to stay fast, fine enough to place the minimum by interpolation. */
 const TOLERANCE_POINTS = 61;
 
-const db = (m: number): number => 20 * Math.log10(Math.max(m, 1e-15));
 
 export function toleranceRuns(spec: Spec, design: PhysicalDesign): ToleranceResult | null {
   const t = spec.tolerance;

@@ -2,9 +2,8 @@
 import type { Diagnostic } from '../diagnostics.js';
 import type { DesignRun } from '../design.js';
 import type { IdealSolution, LineProperties } from '../seams.js';
-import { fixed, impedanceText, mm, trimmed } from '../format.js';
+import { fixed, ghz, impedanceText, mm } from '../format.js';
 
-const ghz = (hz: number): string => `${trimmed(hz / 1e9, 6)} GHz`;
 
 const ROLE_LABEL = { series: 'series line', stub: 'stub', 'lead-source': 'source lead', 'lead-load': 'load lead' } as const;
 

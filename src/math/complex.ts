@@ -60,6 +60,9 @@ export function sinh(a: Complex): Complex {
   return complex(Math.sinh(a.re) * Math.cos(a.im), Math.cosh(a.re) * Math.sin(a.im));
 }
 
+/** 20·log10 of a magnitude, floored at −300 dB so an exact match stays finite. */
+export const db = (magnitude: number): number => 20 * Math.log10(Math.max(magnitude, 1e-15));
+
 export const isFiniteComplex = (a: Complex): boolean => Number.isFinite(a.re) && Number.isFinite(a.im);
 
 /** Reflection coefficient of impedance z against reference z0 (complex references allowed, power-wave form not used). */

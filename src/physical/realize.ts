@@ -1,7 +1,7 @@
 // From ideal electrical lengths to copper that matches once etched: size the lines, move the target
 // through the source lead, apply the first-order discontinuity corrections, then refine both
 // lengths on the full physical network (Newton on two unknowns) so the model presents the target at f0.
-import { complex, abs, type Complex } from '../math/complex.js';
+import { complex, abs, db, type Complex } from '../math/complex.js';
 import { diagnostic, fail, type Diagnostic } from '../diagnostics.js';
 import type {
   Correction,
@@ -346,6 +346,4 @@ function matchedLine(spec: Spec, lines: SizedLines, ideal: IdealSolution, diagno
   };
 }
 
-/** 20·log10, floored at −300 dB so an exact match stays finite. */
-export const db = (magnitude: number): number => 20 * Math.log10(Math.max(magnitude, 1e-15));
 

@@ -2,7 +2,7 @@
 // length was corrected, what the model predicts, and the cautions that go with RF hardware.
 import type { Artifact, Section } from '../seams.js';
 import type { DesignRecordInput } from './json.js';
-import { fixed, impedanceText, mm, trimmed } from '../format.js';
+import { fixed, ghz, impedanceText, mm, trimmed } from '../format.js';
 
 export type ReportInput = DesignRecordInput;
 
@@ -12,7 +12,6 @@ export const CAUTIONS: readonly string[] = [
   'Radiated emissions and the use of radio frequencies are regulated. Operate only within the limits of your local regulations and licences, and defer to licensed practice where it applies.',
 ];
 
-const ghz = (hz: number): string => `${trimmed(hz / 1e9, 6)} GHz`;
 const ROLE_LABEL: Record<Section['role'], string> = {
   series: 'series line (load plane to stub centre-line)',
   stub: 'stub (line edge to end)',
