@@ -3,8 +3,8 @@
 // T-junction, open-end or via model switched off in turn. Read beside the full-wave offsets in
 // results.json: an element whose model moves the minimum by much more than the full-wave error is
 // doing its job. For a short stub it also prints where the minimum moves when the via inductance is
-// scaled (a smaller drill in the Goldfarb–Pucel formula stands in for a larger L), so a full-wave
-// offset can be read as an equivalent via inductance. Diagnostic only (not part of tunestrip, not run by npm test).
+// scaled (a smaller drill in the Goldfarb–Pucel barrel term stands in for a larger L; the crowding
+// term stays as it is), so a full-wave offset can be read as an equivalent via inductance. Diagnostic only (not part of tunestrip, not run by npm test).
 //
 //   npx tsx scripts/fullwave/model-sensitivity.ts OUT_DIR [OUT_DIR ...]
 import { readFileSync } from 'node:fs';

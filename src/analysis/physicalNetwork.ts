@@ -89,14 +89,19 @@ function stubAdmittance(
     return openStubAdmittance(z0, gamma, length + extension);
   }
   if (!(models.via && copper.vias)) return shortStubAdmittance(z0, gamma, length);
-  return inv(inputImpedance(viaImpedance(copper.vias, substrate, frequency), z0, gamma, length));
+  return inv(inputImpedance(viaImpedance(copper.vias, copper.stubWidth, substrate, frequency), z0, gamma, length));
 }
 
-/** Impedance of `count` vias in parallel (Goldfarb–Pucel 1991 inductance with the full-wave factor; mutual coupling ignored). */
-export function viaImpedance(vias: { readonly drill: number; readonly count: number }, substrate: Substrate, frequency: number): Complex {
-  const l = viaInductanceDesign(substrate.height, vias.drill);
-  const r = viaResistance(substrate.height, vias.drill, VIA_PLATING, substrate.conductivity, frequency);
-  return scale(complex(r, 2 * Math.PI * frequency * l), 1 / vias.count);
+/** Impedance of a stub's end on `count` vias in parallel (Goldfarb–Pucel 1991 with the fitted strip-to-pad crowding; mutual coupling ignored). */
+export function viaImpedance(
+  vias: { readonly drill: number; readonly pad: number; readonly count: number },
+  stubWidth: number,
+  substrate: Substrate,
+  frequency: number,
+): Complex {
+  const l = viaInductanceDesign(substrate.height, vias.drill, vias.pad, stubWidth, vias.count);
+  const r = viaResistance(substrate.height, vias.drill, VIA_PLATING, substrate.conductivity, frequency) / vias.count;
+  return complex(r, 2 * Math.PI * frequency * l);
 }
 
 const lossless = (gamma: Complex, withLoss: boolean): Complex => (withLoss ? gamma : complex(0, gamma.im));

@@ -26,7 +26,7 @@ import { mm, trimmed } from '../format.js';
 export const MODEL_NAMES = {
   junction: 'T-junction reference planes (Hammerstad 1981)',
   openEnd: 'open-end extension (Kirschning-Jansen-Koster 1981)',
-  via: 'via inductance (Goldfarb-Pucel 1991 x 1.5, from full-wave runs)',
+  via: 'via inductance (Goldfarb-Pucel 1991 plus strip-to-pad crowding fitted to full-wave runs)',
   halfWave: 'half wavelength added to keep the copper buildable',
   refine: 'solve on the physical network (junction ratio and susceptance, dispersion, loss)',
 } as const;
@@ -158,7 +158,7 @@ export function realizeAll(
 ): PhysicalDesign[] {
   const stubCount: 1 | 2 = ideal.solutions[0]?.style === 'balanced' ? 2 : 1;
   const stubSides = stubCount === 2 ? (['left', 'right'] as const) : ([spec.stubSide] as const);
-  const via = spec.fab.viasPerStub > 0 ? viaOf(spec) : undefined;
+  const via = spec.fab.viasPerStub > 0 ? viaOf(spec, lines.stub.width) : undefined;
   if (ideal.alreadyMatched) return [matchedLine(spec, lines, ideal, [...lines.diagnostics])];
   const candidates = ideal.solutions
     .filter((s) => terminations.includes(s.termination))
@@ -186,12 +186,12 @@ export function realize(spec: Spec, lines: SizedLines, plan: JunctionPlan, ideal
   return all[0]!;
 }
 
-function viaOf(spec: Spec): ViaSpec {
+function viaOf(spec: Spec, stubWidth: number): ViaSpec {
   return {
     drill: spec.fab.viaDrill,
     pad: spec.fab.viaPad,
     count: spec.fab.viasPerStub,
-    inductance: viaInductanceDesign(spec.substrate.height, spec.fab.viaDrill) / spec.fab.viasPerStub,
+    inductance: viaInductanceDesign(spec.substrate.height, spec.fab.viaDrill, spec.fab.viaPad, stubWidth, spec.fab.viasPerStub),
   };
 }
 

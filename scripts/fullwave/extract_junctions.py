@@ -1,0 +1,398 @@
+#!/usr/bin/python3
+"""Full-wave (openEMS FDTD) extraction of the two discontinuities tunestrip fits to its own runs.
+
+Usage:
+    /usr/bin/python3 scripts/fullwave/extract_junctions.py cross [NAME ...] [--work DIR] [--reuse]
+    /usr/bin/python3 scripts/fullwave/extract_junctions.py via   [NAME ...] [--work DIR] [--reuse]
+
+Each case is one bare structure of our own choosing (the CROSSES and VIAS tables below). Widths
+come from tunestrip's own line synthesis (zero-thickness copper), through the built CLI in dist/.
+The results go into scripts/fullwave/junctions.json, one entry per case, keyed by name; the fit
+(scripts/fullwave/fit-junctions.ts) and the tests read that file and never run openEMS.
+
+cross: a symmetric cross of a main line (arms 1, 2 along x) and two stub arms (3 at +y, 4 at −y),
+    copper as zero-thickness PEC on a lossless substrate. Two runs: port 1 excited and port 3
+    excited; the cross's two mirror symmetries give the other two columns. Voltages and currents
+    are moved with each port line's own measured β and impedance to the cross's centre-lines (the
+    main arms to the stub's centre-line, the stub arms to the main line's centre-line); the 4-port
+    impedance matrix is Z = V·I⁻¹ and S is normalised to each arm's measured line impedance.
+    Recorded: S at 13 frequencies over 0.7–1.3 f0, the port lines' εe and impedance, and the
+    symmetry and reciprocity errors of the run.
+
+via: a straight 50 Ω line ending on the centre of one via, with a round pad around the via, as
+    tunestrip draws a short stub's end. The via is a PEC cylinder of the drill diameter from the
+    ground to the copper. One run; the input impedance is moved to the via centre with the port
+    line's measured β and impedance. Recorded: the impedance there, its inductance X/ω, and
+    Goldfarb–Pucel's value for the same via.
+
+The mesh, boundary, excitation and port rules are those of simulate.py (its README), at its
+recorded setting (`--refine 2`). Nothing here is part of tunestrip; it needs Debian's openems,
+python3-openems and a built dist/ (npm run build).
+"""
+from __future__ import annotations
+
+import argparse
+import json
+import math
+import multiprocessing as mp
+import os
+import shutil
+import subprocess
+import time
+
+import numpy as np
+
+import simulate as fw  # noqa: F401  (also restores numpy's float/int aliases for openEMS)
+from CSXCAD import ContinuousStructure  # noqa: E402
+from CSXCAD.SmoothMeshLines import SmoothMeshLines  # noqa: E402
+from openEMS import openEMS  # noqa: E402
+from openEMS.physical_constants import C0, MUE0  # noqa: E402
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+ROOT = os.path.abspath(os.path.join(HERE, '..', '..'))
+RESULTS = os.path.join(HERE, 'junctions.json')
+REFINE = 2.0
+FIT_POINTS = 13              # frequencies recorded per cross, over FIT_BAND × f0
+FIT_BAND = (0.7, 1.3)
+
+# Our own cases. Crosses: (name, εr, h mm, main Z0 Ω, stub Z0 Ω, f0 GHz). The first two repeat the
+# geometry of the two extractions recorded in physics.md §4.2, so our extraction can be compared
+# with them; the rest spread εr, h, f·h and the stub-to-main impedance ratio.
+CROSSES = [
+    ('cross-fr4-1600-50-50-2g4', 4.4, 1.6, 50, 50, 2.4),
+    ('cross-ptfe-508-50-60-6g4', 2.2, 0.508, 50, 60, 6.4),
+    ('cross-hc-508-50-50-5g8', 3.66, 0.508, 50, 50, 5.8),
+    ('cross-er3-760-50-35-3g5', 3.0, 0.76, 50, 35, 3.5),
+    ('cross-fr4-1600-50-100-1g2', 4.4, 1.6, 50, 100, 1.2),
+    ('cross-er10-635-50-50-4g0', 10.2, 0.635, 50, 50, 4.0),
+    ('cross-er338-305-50-70-10g', 3.38, 0.305, 50, 70, 10.0),
+    ('cross-fr4-1600-50-50-5g0', 4.4, 1.6, 50, 50, 5.0),
+]
+# Vias: (name, εr, h mm, drill mm, pad mm, f0 GHz, line Z0 Ω). The first repeats physics.md §4.4's
+# line-ending-in-via case; the last four vary the strip width against the height (w/h) apart from εr.
+VIAS = [
+    ('via-er3-760-d300', 3.0, 0.76, 0.3, 0.6, 3.5, 50),
+    ('via-fr4-1600-d300', 4.4, 1.6, 0.3, 0.6, 2.4, 50),
+    ('via-fr4-1600-d800', 4.4, 1.6, 0.8, 1.2, 2.4, 50),
+    ('via-hc-508-d300', 3.66, 0.508, 0.3, 0.6, 5.8, 50),
+    ('via-ptfe-254-d200', 2.2, 0.254, 0.2, 0.45, 10.0, 50),
+    ('via-er10-635-d300', 10.2, 0.635, 0.3, 0.6, 4.0, 50),
+    ('via-fr4-1000-d500', 4.4, 1.0, 0.5, 0.9, 3.0, 50),
+    ('via-fr4-1600-d300-z80', 4.4, 1.6, 0.3, 0.6, 2.4, 80),
+    ('via-er3-760-d300-z30', 3.0, 0.76, 0.3, 0.6, 3.5, 30),
+    ('via-er10-635-d300-z30', 10.2, 0.635, 0.3, 0.6, 4.0, 30),
+    ('via-ptfe-254-d200-z80', 2.2, 0.254, 0.2, 0.45, 10.0, 80),
+]
+
+
+def synthesize_width(er, h_mm, z0, f_ghz):
+    """tunestrip's own zero-thickness synthesis (the model the fit is for), in mm."""
+    out = subprocess.run(
+        ['node', os.path.join(ROOT, 'dist', 'cli', 'bin.js'), 'line', '--er', str(er), '--height', f'{h_mm}mm',
+         '--copper', '0', '--freq', f'{f_ghz}GHz', f'--z0={z0}', '--json'],
+        capture_output=True, text=True, check=True)
+    return json.loads(out.stdout)['width_m'] * 1e3
+
+
+def goldfarb_pucel_nh(h_mm, drill_mm):
+    """Goldfarb & Pucel, IEEE MGWL 1(6) 1991 (physics.md §4.4), written again here from the formula."""
+    h, r = h_mm * 1e-3, drill_mm * 0.5e-3
+    s = math.hypot(r, h)
+    return MUE0 / (2 * math.pi) * (h * math.log((h + s) / r) + 1.5 * (r - s)) * 1e9
+
+
+def thirds(edge, outward, fine):
+    """The thirds rule at one strip edge: a line r/3 inside the metal, one 2r/3 outside."""
+    return [edge - outward * fine / 3, edge + outward * 2 * fine / 3]
+
+
+def symmetric(lines_pos, res, inner, extent_inner, tol):
+    """Mesh lines for x ≥ 0, smoothed, mirrored to x < 0 so both halves are the same cells."""
+    core = SmoothMeshLines(fw.merge([0.0] + [v for v in lines_pos if 0 <= v <= extent_inner], tol), inner, fw.GROWTH)
+    outer = [v for v in lines_pos if v > extent_inner]
+    half = SmoothMeshLines(fw.merge(list(core) + outer, tol / 2), res, fw.GROWTH)
+    half = [float(v) for v in half if v >= 0]
+    return sorted(set([-v for v in half if v > 0] + half))
+
+
+def run_fdtd(fdtd, csx, sim_path):
+    if os.path.isdir(sim_path):
+        shutil.rmtree(sim_path)
+    os.makedirs(sim_path)
+    t0 = time.time()
+    fdtd.Run(sim_path, cleanup=True, verbose=0, numThreads=1)
+    return time.time() - t0
+
+
+def new_fdtd(f0, mesh):
+    fdtd = openEMS(EndCriteria=fw.END_CRITERIA, NrTS=2_000_000)
+    fdtd.SetGaussExcite(f0, 0.6 * f0)
+    fdtd.SetBoundaryCond(['MUR', 'MUR', 'MUR', 'MUR', 'PEC', 'MUR'])
+    csx = ContinuousStructure()
+    fdtd.SetCSX(csx)
+    grid = csx.GetGrid()
+    grid.SetDeltaUnit(fw.UNIT)
+    for axis in 'xyz':
+        grid.SetLines(axis, mesh[axis])
+    return fdtd, csx
+
+
+# ---------------------------------------------------------------------------------------------
+# Cross
+
+
+def plan_cross(case):
+    name, er, h, z_main, z_stub, f_ghz = case
+    f0 = f_ghz * 1e9
+    wm = synthesize_width(er, h, z_main, f_ghz)
+    ws = synthesize_width(er, h, z_stub, f_ghz)
+    f_max = fw.BAND[1] * f0 * 1.25
+    res = C0 / (f_max * math.sqrt(er)) / fw.UNIT / fw.CELLS_PER_WAVELENGTH / REFINE
+    fine = min(min(wm, ws) / fw.EDGE_CELLS_PER_WIDTH, h / 2) / REFINE
+    meas = max(6 * h, 3 * max(wm, ws), 4.0)
+    feed = 2 * meas + 2 * res
+    ax = ws / 2 + feed  # main arms end at x = ±ax; the measurement plane is `meas` from the stub edge
+    ay = wm / 2 + feed  # stub arms end at y = ±ay
+    air = max(12 * h, 8.0)
+    inner = min(res, min(wm, ws) / fw.CELLS_ACROSS_WIDTH / REFINE)
+    tol = fine / 4
+    mesh_x = symmetric(thirds(ws / 2, 1, fine) + [ax, ax + 3 * res], res, inner, ws / 2 + 2 * fine, tol)
+    mesh_y = symmetric(thirds(wm / 2, 1, fine) + [ay, ay + 3 * res], res, inner, wm / 2 + 2 * fine, tol)
+    z_sub = list(np.linspace(0, h, max(2, round(fw.SUBSTRATE_CELLS * REFINE)) + 1))
+    mesh_z = [float(v) for v in SmoothMeshLines(z_sub + [h + air], res, fw.GROWTH)]
+    return {'name': name, 'er': er, 'h': h, 'f0': f0, 'wm': wm, 'ws': ws, 'z_main': z_main, 'z_stub': z_stub,
+            'ax': ax, 'ay': ay, 'meas': meas, 'res': res, 'fine': fine,
+            'mesh': {'x': mesh_x, 'y': mesh_y, 'z': mesh_z}}
+
+
+def cross_ports(fdtd, copper, p, excite):
+    """Ports 1 (−x), 2 (+x), 3 (+y), 4 (−y); each box runs from the arm's end to the other arm's edge."""
+    h, wm, ws, ax, ay = p['h'], p['wm'], p['ws'], p['ax'], p['ay']
+    specs = {
+        1: ([-ax, -wm / 2, h], [-ws / 2, wm / 2, 0], 'x', ax),
+        2: ([ax, -wm / 2, h], [ws / 2, wm / 2, 0], 'x', ax),
+        3: ([-ws / 2, ay, h], [ws / 2, wm / 2, 0], 'y', ay),
+        4: ([-ws / 2, -ay, h], [ws / 2, -wm / 2, 0], 'y', ay),
+    }
+    ports = {}
+    for n, (start, stop, direction, to_centre) in specs.items():
+        arm = abs(stop['xy'.index(direction)] - start['xy'.index(direction)])
+        ports[n] = (fdtd.AddMSLPort(n, copper, start, stop, direction, 'z', excite=1 if n == excite else 0,
+                                    MeasPlaneShift=arm - p['meas'], FeedShift=0, Feed_R=50, priority=10), to_centre)
+    return ports
+
+
+def run_cross(args):
+    p, excite, sim_path = args
+    fdtd, csx = new_fdtd(p['f0'], p['mesh'])
+    mx, my, mz = p['mesh']['x'], p['mesh']['y'], p['mesh']['z']
+    csx.AddMaterial('substrate', epsilon=p['er']).AddBox([mx[0], my[0], 0], [mx[-1], my[-1], p['h']], priority=0)
+    copper = csx.AddMetal('copper')
+    h, wm, ws, ax, ay = p['h'], p['wm'], p['ws'], p['ax'], p['ay']
+    copper.AddBox([-ax, -wm / 2, h], [ax, wm / 2, h], priority=10)
+    copper.AddBox([-ws / 2, -ay, h], [ws / 2, ay, h], priority=10)
+    ports = cross_ports(fdtd, copper, p, excite)
+    seconds = run_fdtd(fdtd, csx, sim_path)
+    freq = np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS)
+    out = {'seconds': seconds, 'freq': freq}
+    for n, (port, to_centre) in ports.items():
+        port.CalcPort(sim_path, freq, ref_plane_shift=to_centre)
+        out[n] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
+    return out
+
+
+def cross_matrices(run1, run3):
+    """Full V and I (4×4 per frequency) from runs 1 and 3 and the cross's two mirror symmetries."""
+    n = len(run1['freq'])
+    v = np.zeros((n, 4, 4), complex)
+    i = np.zeros((n, 4, 4), complex)
+    swap_x = [2, 1, 3, 4]   # mirror x → −x: excitation of port 2 seen as port 1's
+    swap_y = [1, 2, 4, 3]   # mirror y → −y: excitation of port 4 seen as port 3's
+    for k in range(n):
+        for col, (run, perm) in enumerate(((run1, [1, 2, 3, 4]), (run1, swap_x), (run3, [1, 2, 3, 4]), (run3, swap_y))):
+            for row in range(4):
+                v[k, row, col] = run[perm[row]]['v'][k]
+                i[k, row, col] = run[perm[row]]['i'][k]
+    return v, i
+
+
+def extract_cross(p, work, reuse):
+    jobs = [(p, e, os.path.join(work, p['name'], f'excite-{e}')) for e in (1, 3)]
+    if reuse and all(os.path.exists(os.path.join(j[2], 'ports.npy')) for j in jobs):
+        runs = [np.load(os.path.join(j[2], 'ports.npy'), allow_pickle=True).item() for j in jobs]
+    else:
+        with mp.get_context('fork').Pool(2) as pool:
+            runs = pool.map(run_cross, jobs)
+    run1, run3 = runs
+    freq = run1['freq']
+    v, i = cross_matrices(run1, run3)
+    z = np.array([v[k] @ np.linalg.inv(i[k]) for k in range(len(freq))])
+    z_main = np.real(run1[1]['zl'])
+    z_stub = np.real(run3[3]['zl'])
+    s = []
+    for k in range(len(freq)):
+        r = np.diag([z_main[k], z_main[k], z_stub[k], z_stub[k]])
+        root = np.sqrt(r)
+        s.append(np.linalg.inv(root) @ (z[k] - r) @ np.linalg.inv(z[k] + r) @ root)
+    s = np.array(s)
+    reciprocity = float(np.max(np.abs(z - np.transpose(z, (0, 2, 1)))) / np.max(np.abs(z)))
+    symmetry = float(np.max(np.abs(run1[3]['v'] - run1[4]['v']) / np.abs(run1[3]['v'])))
+    k_of = lambda f: 2 * math.pi * f / C0  # noqa: E731
+    return {
+        'name': p['name'],
+        'substrate': {'er': p['er'], 'height_m': p['h'] * 1e-3, 'copper_m': 0.0, 'tan_delta': 0.0},
+        'frequency_hz': p['f0'],
+        'main': {'z0_target_ohm': p['z_main'], 'width_m': p['wm'] * 1e-3},
+        'stub': {'z0_target_ohm': p['z_stub'], 'width_m': p['ws'] * 1e-3},
+        'freq_hz': [float(f) for f in freq],
+        's_re': np.real(s).round(6).tolist(),
+        's_im': np.imag(s).round(6).tolist(),
+        'fdtd_line': {
+            'main_z_ohm': z_main.round(4).tolist(),
+            'stub_z_ohm': z_stub.round(4).tolist(),
+            'main_eps_eff': [float(round((np.real(b) / k_of(f)) ** 2, 5)) for b, f in zip(run1[1]['beta'], freq)],
+            'stub_eps_eff': [float(round((np.real(b) / k_of(f)) ** 2, 5)) for b, f in zip(run3[3]['beta'], freq)],
+        },
+        'reciprocity_error': round(reciprocity, 6),
+        'symmetry_error': round(symmetry, 6),
+        'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
+                 'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'run_seconds': round(max(r['seconds'] for r in runs), 1),
+    }
+
+
+# ---------------------------------------------------------------------------------------------
+# Via at the end of a line
+
+
+def plan_via(case):
+    name, er, h, drill, pad, f_ghz, z0 = case
+    f0 = f_ghz * 1e9
+    w = synthesize_width(er, h, z0, f_ghz)
+    f_max = fw.BAND[1] * f0 * 1.25
+    res = C0 / (f_max * math.sqrt(er)) / fw.UNIT / fw.CELLS_PER_WAVELENGTH / REFINE
+    fine = min(w / fw.EDGE_CELLS_PER_WIDTH, h / 2) / REFINE
+    r = drill / 2
+    via_cells = max(1, round(fw.VIA_CELLS_PER_RADIUS * REFINE))
+    meas = max(6 * h, 3 * w, 4.0)
+    feed = 2 * meas + 2 * res
+    x_far = -(pad / 2 + feed)   # the line runs from x_far to the via centre at x = 0
+    margin = max(10 * h, 3 * w, 8.0)
+    air = max(12 * h, 8.0)
+    step = r / via_cells
+    tol = min(fine / 4, step / 2)
+    via_lines = list(step * np.arange(-via_cells, via_cells + 1))
+    xs = [v for v in thirds(pad / 2, 1, fine) if v > r + step / 2] + via_lines + [x_far]
+    ys_pos = [v for v in thirds(w / 2, 1, fine) + thirds(pad / 2, 1, fine) if v > r + step / 2]
+    ys = ys_pos + [-v for v in ys_pos] + via_lines
+    inner = min(res, w / fw.CELLS_ACROSS_WIDTH / REFINE, pad / 4)
+    core_x = SmoothMeshLines(fw.merge(xs, tol), inner, fw.GROWTH)
+    mesh_x = SmoothMeshLines(fw.merge(list(core_x), tol / 2) + [x_far - 3 * res, pad / 2 + margin], res, fw.GROWTH)
+    core_y = SmoothMeshLines(fw.merge(ys, tol), inner, fw.GROWTH)
+    mesh_y = SmoothMeshLines(fw.merge(list(core_y), tol / 2) + [-(w / 2 + margin), w / 2 + margin], res, fw.GROWTH)
+    z_sub = list(np.linspace(0, h, max(2, round(fw.SUBSTRATE_CELLS * REFINE)) + 1))
+    mesh_z = SmoothMeshLines(z_sub + [h + air], res, fw.GROWTH)
+    return {'name': name, 'er': er, 'h': h, 'f0': f0, 'z0': z0, 'w': w, 'drill': drill, 'pad': pad, 'x_far': x_far,
+            'meas': meas, 'res': res, 'fine': fine,
+            'mesh': {a: [float(v) for v in m] for a, m in (('x', mesh_x), ('y', mesh_y), ('z', mesh_z))}}
+
+
+def run_via(args):
+    p, sim_path = args
+    fdtd, csx = new_fdtd(p['f0'], p['mesh'])
+    mx, my = p['mesh']['x'], p['mesh']['y']
+    h, w = p['h'], p['w']
+    csx.AddMaterial('substrate', epsilon=p['er']).AddBox([mx[0], my[0], 0], [mx[-1], my[-1], h], priority=0)
+    copper = csx.AddMetal('copper')
+    copper.AddBox([p['x_far'], -w / 2, h], [0, w / 2, h], priority=10)
+    # the pad as tunestrip draws it: a polygon of 32 sides on the via centre
+    angles = 2 * math.pi * np.arange(32) / 32
+    copper.AddPolygon(np.array([p['pad'] / 2 * np.cos(angles), p['pad'] / 2 * np.sin(angles)]), 'z', h, priority=10)
+    copper.AddCylinder([0, 0, 0], [0, 0, h], p['drill'] / 2, priority=10)
+    arm = abs(p['x_far']) - p['pad'] / 2
+    port = fdtd.AddMSLPort(1, copper, [p['x_far'], -w / 2, h], [p['x_far'] + arm, w / 2, 0], 'x', 'z', excite=1,
+                           MeasPlaneShift=arm - p['meas'], FeedShift=0, Feed_R=50, priority=10)
+    seconds = run_fdtd(fdtd, csx, sim_path)
+    freq = np.linspace(0.5 * p['f0'], 1.5 * p['f0'], 11)
+    port.CalcPort(sim_path, freq, ref_plane_shift=abs(p['x_far']))
+    out = {'seconds': seconds, 'freq': freq, 'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
+    return out
+
+
+def extract_via(p, work, reuse):
+    sim_path = os.path.join(work, p['name'])
+    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
+        run = np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
+    else:
+        run = run_via((p, sim_path))
+    freq = run['freq']
+    z = run['v'] / run['i']
+    inductance = np.imag(z) / (2 * math.pi * freq)
+    k0 = len(freq) // 2
+    gp = goldfarb_pucel_nh(p['h'], p['drill'])
+    return {
+        'name': p['name'],
+        'substrate': {'er': p['er'], 'height_m': p['h'] * 1e-3, 'copper_m': 0.0, 'tan_delta': 0.0},
+        'frequency_hz': p['f0'],
+        'line': {'z0_target_ohm': p['z0'], 'width_m': p['w'] * 1e-3},
+        'via': {'drill_m': p['drill'] * 1e-3, 'pad_m': p['pad'] * 1e-3},
+        'freq_hz': [float(f) for f in freq],
+        'z_re_ohm': np.real(z).round(5).tolist(),
+        'z_im_ohm': np.imag(z).round(5).tolist(),
+        'inductance_nh': (inductance * 1e9).round(5).tolist(),
+        'inductance_nh_at_f0': round(float(inductance[k0] * 1e9), 5),
+        'goldfarb_pucel_nh': round(gp, 5),
+        'ratio_to_goldfarb_pucel_at_f0': round(float(inductance[k0] * 1e9 / gp), 4),
+        'fdtd_line_z_ohm_at_f0': round(float(np.real(run['zl'][k0])), 4),
+        'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
+                 'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'run_seconds': round(run['seconds'], 1),
+    }
+
+
+def save(kind, entry):
+    data = {'solver': fw.openems_version(), 'crosses': [], 'vias': []}
+    if os.path.exists(RESULTS):
+        with open(RESULTS, encoding='utf8') as f:
+            data = json.load(f)
+    data['solver'] = fw.openems_version()
+    data[kind] = sorted([d for d in data[kind] if d['name'] != entry['name']] + [entry], key=lambda d: d['name'])
+    with open(RESULTS + '.tmp', 'w', encoding='utf8') as f:
+        json.dump(data, f, indent=1)
+        f.write('\n')
+    os.replace(RESULTS + '.tmp', RESULTS)
+
+
+def main():
+    ap = argparse.ArgumentParser(description=__doc__.split('\n')[0])
+    ap.add_argument('kind', choices=['cross', 'via'])
+    ap.add_argument('names', nargs='*', help='cases to run (default: all of that kind)')
+    ap.add_argument('--work', default='/tmp/fullwave-junctions')
+    ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
+    ap.add_argument('--parallel', type=int, default=1, help='via cases run side by side (one thread each)')
+    args = ap.parse_args()
+    table = CROSSES if args.kind == 'cross' else VIAS
+    cases = [c for c in table if not args.names or c[0] in args.names]
+    if args.names and len(cases) != len(args.names):
+        raise SystemExit('unknown case name; known: ' + ', '.join(c[0] for c in table))
+    if args.kind == 'cross':
+        for c in cases:
+            entry = extract_cross(plan_cross(c), args.work, args.reuse)
+            save('crosses', entry)
+            print(json.dumps({k: entry[k] for k in ('name', 'reciprocity_error', 'symmetry_error', 'mesh', 'run_seconds')}), flush=True)
+    else:
+        plans = [plan_via(c) for c in cases]
+        if args.parallel > 1 and not args.reuse:
+            with mp.get_context('fork').Pool(args.parallel) as pool:
+                pool.map(run_via, [(p, os.path.join(args.work, p['name'])) for p in plans])
+            args.reuse = True
+        for p in plans:
+            entry = extract_via(p, args.work, args.reuse)
+            save('vias', entry)
+            print(json.dumps({k: entry[k] for k in ('name', 'inductance_nh_at_f0', 'goldfarb_pucel_nh', 'ratio_to_goldfarb_pucel_at_f0', 'run_seconds')}), flush=True)
+
+
+if __name__ == '__main__':
+    main()

@@ -1,0 +1,218 @@
+// The fits of tunestrip's cross-junction and via models to this project's own full-wave extractions
+// (scripts/fullwave/junctions.json, made by extract_junctions.py with openEMS). Used by
+// fit-junctions.ts (prints the fit) and by test/reference/fullwave-junctions.test.ts (checks that the
+// coefficients in src/ are the ones these data give). Not part of tunestrip.
+//
+// Cross: the equivalent circuit tunestrip's network uses (physics.md §4.2: a node with shunt jB, the
+// main arms through ideal transformers n², reference planes d_a and d2), seen from the cross's
+// centre-lines, is compared with the extracted S matrix in the even mode of the two stubs (the only
+// mode a balanced stub pair drives). The four coefficients of `crossJunctionFitted` are chosen by
+// least squares over every case and frequency.
+import { readFileSync } from 'node:fs';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { abs, add, complex, div, exp, mul, scale, sub, type Complex } from '../../src/math/complex.js';
+import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
+import { crossJunctionFitted, tJunctionHammerstad, viaInductanceDesign, viaInductanceGoldfarbPucel, type CrossFit } from '../../src/physical/discontinuities/index.js';
+import { MU0 } from '../../src/physical/microstrip/index.js';
+import type { LineProperties, Substrate } from '../../src/seams.js';
+
+export interface SubstrateRecord { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number }
+export interface CrossRecord {
+  readonly name: string;
+  readonly substrate: SubstrateRecord;
+  readonly frequency_hz: number;
+  readonly main: { readonly z0_target_ohm: number; readonly width_m: number };
+  readonly stub: { readonly z0_target_ohm: number; readonly width_m: number };
+  readonly freq_hz: readonly number[];
+  readonly s_re: readonly (readonly (readonly number[])[])[];
+  readonly s_im: readonly (readonly (readonly number[])[])[];
+  readonly reciprocity_error: number;
+  readonly symmetry_error: number;
+}
+export interface ViaRecord {
+  readonly name: string;
+  readonly substrate: SubstrateRecord;
+  readonly frequency_hz: number;
+  readonly line: { readonly width_m: number };
+  readonly via: { readonly drill_m: number; readonly pad_m: number };
+  readonly freq_hz: readonly number[];
+  readonly inductance_nh: readonly number[];
+  readonly inductance_nh_at_f0: number;
+}
+export interface JunctionData { readonly solver: string; readonly crosses: readonly CrossRecord[]; readonly vias: readonly ViaRecord[] }
+
+const here = dirname(fileURLToPath(import.meta.url));
+export const JUNCTIONS_FILE = join(here, 'junctions.json');
+
+export function readJunctions(file = JUNCTIONS_FILE): JunctionData {
+  return JSON.parse(readFileSync(file, 'utf8')) as JunctionData;
+}
+
+export const substrateOf = (s: SubstrateRecord): Substrate => ({
+  er: s.er,
+  height: s.height_m,
+  copper: s.copper_m,
+  tanDelta: s.tan_delta,
+  roughness: 0,
+  conductivity: 5.8e7,
+});
+
+type Matrix = Complex[][];
+
+/** Even mode of the stub pair: ports main 1, main 2, and (stub 3 + stub 4)/√2. */
+function evenMode(s: Matrix): Matrix {
+  const u = (row: Complex[], k: number): Complex => (k < 2 ? row[k]! : scale(add(row[2]!, row[3]!), Math.SQRT1_2));
+  const half = s.map((row) => [0, 1, 2].map((k) => u(row, k)));
+  return [0, 1, 2].map((i) => [0, 1, 2].map((k) => (i < 2 ? half[i]![k]! : scale(add(half[2]![k]!, half[3]![k]!), Math.SQRT1_2))));
+}
+
+export function measuredEvenS(record: CrossRecord, k: number): Matrix {
+  const s = record.s_re[k]!.map((row, i) => row.map((re, j) => complex(re, record.s_im[k]![i]![j]!)));
+  return evenMode(s);
+}
+
+/** Line properties of one cross case at one frequency, computed once per fit. */
+export interface CrossPoint {
+  readonly substrate: Substrate;
+  readonly main: LineProperties;
+  readonly stub: LineProperties;
+  readonly measured: Matrix;
+}
+
+export function crossPoints(records: readonly CrossRecord[]): CrossPoint[] {
+  return records.flatMap((r) => {
+    const substrate = substrateOf(r.substrate);
+    return r.freq_hz.map((f, k) => ({
+      substrate,
+      main: analyseMicrostrip(r.main.width_m, substrate, f),
+      stub: analyseMicrostrip(r.stub.width_m, substrate, f),
+      measured: measuredEvenS(r, k),
+    }));
+  });
+}
+
+export interface JunctionElements { readonly da: number; readonly d2: number; readonly n2: number; readonly susceptance: number }
+
+/**
+ * S of the equivalent circuit seen from the cross's centre-lines, in the even mode. At the node the
+ * four arms present G_k = 1/(n_k²·Z_k) (a transformer renormalises without reflecting), so
+ * S_node = 2·√(G_i·G_j)/(ΣG + jB) − δ_ij; each arm then adds its line from the centre-line to its
+ * reference plane, of length −d_a (main) or −d2 (stub).
+ */
+export function modelEvenS(point: CrossPoint, j: JunctionElements): Matrix {
+  const { main, stub } = point;
+  const g = [1 / (j.n2 * main.z0), 1 / (j.n2 * main.z0), 1 / stub.z0, 1 / stub.z0];
+  const total = complex(g.reduce((a, b) => a + b, 0), j.susceptance);
+  const phase = [main.beta * j.da, main.beta * j.da, stub.beta * j.d2, stub.beta * j.d2];
+  const s = g.map((gi, i) =>
+    g.map((gk, k) => {
+      const node = sub(div(complex(2 * Math.sqrt(gi * gk)), total), complex(i === k ? 1 : 0));
+      return mul(node, exp(complex(0, phase[i]! + phase[k]!)));
+    }),
+  );
+  return evenMode(s);
+}
+
+export function crossElements(point: CrossPoint, fit: CrossFit | undefined): JunctionElements {
+  const f = point.main.frequency;
+  const tee = tJunctionHammerstad(point.main, point.main, point.stub, point.substrate, f);
+  const j = fit ? crossJunctionFitted(tee, point.stub, point.substrate, fit) : tee;
+  return { da: j.da, d2: j.d2, n2: j.n2a, susceptance: j.susceptance };
+}
+
+/** Root-mean-square difference of the even-mode S elements over the points (9 per point). */
+export function rmsError(points: readonly CrossPoint[], elementsOf: (p: CrossPoint) => JunctionElements): number {
+  let sum = 0;
+  for (const p of points) {
+    const model = modelEvenS(p, elementsOf(p));
+    for (let i = 0; i < 3; i += 1) for (let k = 0; k < 3; k += 1) sum += abs(sub(model[i]![k]!, p.measured[i]![k]!)) ** 2;
+  }
+  return Math.sqrt(sum / (9 * points.length));
+}
+
+const fitOf = (x: readonly number[]): CrossFit => ({ planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]! });
+
+/** Least-squares coefficients of the cross correction over all points (Nelder–Mead from `start`). */
+export function fitCross(points: readonly CrossPoint[], start: CrossFit): { fit: CrossFit; rms: number } {
+  const x0 = [start.planeA, start.stubPlaneD2, start.n2Deficit, start.susceptance];
+  const cost = (x: readonly number[]): number => rmsError(points, (p) => crossElements(p, fitOf(x)));
+  const best = nelderMead(cost, x0, x0.map((v) => 0.2 * Math.abs(v) + 0.05));
+  return { fit: fitOf(best.x), rms: best.value };
+}
+
+/** One cross case's own elements (d_a, d2, n², B) at one frequency, fitted to its S alone. */
+export function caseElements(point: CrossPoint, start: JunctionElements): JunctionElements & { rms: number } {
+  const toElements = (x: readonly number[]): JunctionElements => ({ da: x[0]! * 1e-3, d2: x[1]! * 1e-3, n2: x[2]!, susceptance: x[3]! * 1e-3 });
+  const x0 = [start.da * 1e3, start.d2 * 1e3, start.n2, start.susceptance * 1e3];
+  const best = nelderMead((x) => rmsError([point], () => toElements(x)), x0, [0.1, 0.3, 0.02, 0.5]);
+  return { ...toElements(best.x), rms: best.value };
+}
+
+/** Nelder–Mead simplex minimisation (standard coefficients 1, 2, ½, ½), to a relative spread of 1e-12. */
+export function nelderMead(f: (x: readonly number[]) => number, x0: readonly number[], steps: readonly number[], maxIterations = 4000): { x: number[]; value: number } {
+  const n = x0.length;
+  let simplex = [x0.slice(), ...steps.map((s, i) => x0.map((v, k) => (k === i ? v + s : v)))].map((x) => ({ x, value: f(x) }));
+  for (let it = 0; it < maxIterations; it += 1) {
+    simplex.sort((a, b) => a.value - b.value);
+    const best = simplex[0]!;
+    const worst = simplex[n]!;
+    if (Math.abs(worst.value - best.value) <= 1e-12 * (Math.abs(best.value) + 1e-30)) break;
+    const centroid = x0.map((_, k) => simplex.slice(0, n).reduce((a, p) => a + p.x[k]!, 0) / n);
+    const along = (t: number): number[] => centroid.map((c, k) => c + t * (worst.x[k]! - c));
+    const reflected = along(-1);
+    const fr = f(reflected);
+    if (fr < best.value) {
+      const expanded = along(-2);
+      const fe = f(expanded);
+      simplex[n] = fe < fr ? { x: expanded, value: fe } : { x: reflected, value: fr };
+    } else if (fr < simplex[n - 1]!.value) {
+      simplex[n] = { x: reflected, value: fr };
+    } else {
+      const contracted = fr < worst.value ? along(-0.5) : along(0.5);
+      const fc = f(contracted);
+      if (fc < Math.min(fr, worst.value)) simplex[n] = { x: contracted, value: fc };
+      else simplex = simplex.map((p, i) => (i === 0 ? p : { x: p.x.map((v, k) => best.x[k]! + 0.5 * (v - best.x[k]!)), value: NaN })).map((p) => (Number.isNaN(p.value) ? { x: p.x, value: f(p.x) } : p));
+    }
+  }
+  simplex.sort((a, b) => a.value - b.value);
+  return { x: simplex[0]!.x, value: simplex[0]!.value };
+}
+
+export interface ViaComparison {
+  readonly name: string;
+  readonly hOverD: number;
+  readonly wOverH: number;
+  readonly measuredNh: number;
+  readonly goldfarbPucelNh: number;
+  /** tunestrip's design model (src/) for the same via, strip and pad. */
+  readonly designNh: number;
+}
+
+export function viaComparisons(records: readonly ViaRecord[]): ViaComparison[] {
+  return records.map((r) => ({
+    name: r.name,
+    hOverD: r.substrate.height_m / r.via.drill_m,
+    wOverH: r.line.width_m / r.substrate.height_m,
+    measuredNh: r.inductance_nh_at_f0,
+    goldfarbPucelNh: viaInductanceGoldfarbPucel(r.substrate.height_m, r.via.drill_m) * 1e9,
+    designNh: viaInductanceDesign(r.substrate.height_m, r.via.drill_m, r.via.pad_m, r.line.width_m) * 1e9,
+  }));
+}
+
+/**
+ * The crowding coefficient k of L = L_GP + (μ0/2π)·k·max(w − pad, 0) that minimises the squared
+ * relative error over the extracted vias (linear least squares, closed form).
+ */
+export function fitViaCrowding(records: readonly ViaRecord[]): number {
+  let num = 0;
+  let den = 0;
+  for (const r of records) {
+    const measured = r.inductance_nh_at_f0 * 1e-9;
+    const gp = viaInductanceGoldfarbPucel(r.substrate.height_m, r.via.drill_m);
+    const c = (MU0 / (2 * Math.PI)) * Math.max(r.line.width_m - r.via.pad_m, 0);
+    num += (c / measured) * (1 - gp / measured);
+    den += (c / measured) ** 2;
+  }
+  return num / den;
+}

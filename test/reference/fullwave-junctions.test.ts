@@ -1,0 +1,109 @@
+// The cross-junction and via models against this project's own full-wave extractions
+// (scripts/fullwave/junctions.json, made by scripts/fullwave/extract_junctions.py with openEMS, an
+// independent FDTD solver, Debian package openems). openEMS does not run here: the test reads the
+// committed data, checks that the extractions are physically sound, that they agree with the earlier,
+// independently made extractions recorded in physics.md §4.2 and §4.4, and that the coefficients in
+// src/ are the least-squares fit of these data and reproduce every case.
+import { describe, expect, it } from 'vitest';
+import { CROSS_FIT, VIA_CROWDING_FIT } from '../../src/physical/discontinuities/index.js';
+import { abs, add, complex, conj, mul } from '../../src/math/complex.js';
+import {
+  crossElements,
+  crossPoints,
+  fitCross,
+  fitViaCrowding,
+  readJunctions,
+  rmsError,
+  viaComparisons,
+} from '../../scripts/fullwave/junction-fit.js';
+
+const data = readJunctions();
+
+describe('full-wave cross extractions (junctions.json)', () => {
+  it('cover the range the fit claims: eight crosses, εr 2.2–10.2, h 0.305–1.6 mm, stubs 35–100 Ω', () => {
+    expect(data.crosses.length).toBe(8);
+    const ers = data.crosses.map((c) => c.substrate.er);
+    const hs = data.crosses.map((c) => c.substrate.height_m);
+    const zs = data.crosses.map((c) => c.stub.z0_target_ohm);
+    expect([Math.min(...ers), Math.max(...ers)]).toEqual([2.2, 10.2]);
+    expect([Math.min(...hs), Math.max(...hs)]).toEqual([0.305e-3, 1.6e-3]);
+    expect([Math.min(...zs), Math.max(...zs)]).toEqual([35, 100]);
+  });
+
+  for (const record of data.crosses) {
+    it(`${record.name}: reciprocal, mirror-symmetric and lossless within the run's accuracy`, () => {
+      expect(record.reciprocity_error).toBeLessThan(5e-3);
+      expect(record.symmetry_error).toBeLessThan(1e-3);
+      // Lossless substrate and PEC copper: S^H·S = I, short of what the cross radiates (our own bound).
+      for (const p of crossPoints([record])) {
+        for (let i = 0; i < 3; i += 1) {
+          for (let k = 0; k < 3; k += 1) {
+            let sum = complex(i === k ? -1 : 0);
+            for (let m = 0; m < 3; m += 1) sum = add(sum, mul(conj(p.measured[m]![i]!), p.measured[m]![k]!));
+            expect(abs(sum)).toBeLessThan(0.03);
+          }
+        }
+      }
+    });
+  }
+
+  it('agree with the two earlier extractions recorded in physics.md §4.2 (other runs, other script)', () => {
+    // physics.md §4.2, "Full-wave check of the cross": measured d_a, d2, n², B at f0 for the same two
+    // geometries. Put into the same equivalent circuit they reproduce our measured S at f0.
+    const earlier: Record<string, { da: number; d2: number; n2: number; susceptance: number }> = {
+      'cross-ptfe-508-50-60-6g4': { da: 0.14e-3, d2: 1.366e-3, n2: 0.976, susceptance: 1.79e-3 },
+      'cross-fr4-1600-50-50-2g4': { da: 0.48e-3, d2: 3.609e-3, n2: 0.958, susceptance: 5.79e-3 },
+    };
+    for (const [name, elements] of Object.entries(earlier)) {
+      const record = data.crosses.find((c) => c.name === name)!;
+      const atF0 = crossPoints([record]).filter((p) => Math.abs(p.main.frequency - record.frequency_hz) < 1);
+      expect(atF0.length).toBe(1);
+      expect(rmsError(atF0, () => elements)).toBeLessThan(0.015);
+    }
+  });
+});
+
+describe('cross-junction model (src/physical/discontinuities/cross.ts) fitted to them', () => {
+  const all = crossPoints(data.crosses);
+  const inSrc = rmsError(all, (p) => crossElements(p, CROSS_FIT));
+
+  it('its coefficients are the least-squares fit: a fresh fit improves the rms by under 0.5 %', () => {
+    const fresh = fitCross(all, CROSS_FIT);
+    expect(fresh.rms).toBeGreaterThan(inSrc * 0.995);
+  });
+
+  for (const record of data.crosses) {
+    it(`${record.name}: even-mode S within 0.02 rms, and closer than the bare T model`, () => {
+      const points = crossPoints([record]);
+      const fitted = rmsError(points, (p) => crossElements(p, CROSS_FIT));
+      const tee = rmsError(points, (p) => crossElements(p, undefined));
+      expect(fitted).toBeLessThan(0.02);
+      expect(fitted).toBeLessThan(0.9 * tee);
+    });
+  }
+});
+
+describe('via model (src/physical/discontinuities/via.ts) against the full-wave vias', () => {
+  const cases = viaComparisons(data.vias);
+
+  it('the line-ending-in-via case repeats physics.md §4.4 (0.245 nH, an earlier run) within 2 %', () => {
+    const repeat = cases.find((c) => c.name === 'via-er3-760-d300')!;
+    expect(Math.abs(repeat.measuredNh / 0.245 - 1)).toBeLessThan(0.02);
+  });
+
+  it('the crowding coefficient in src is the least-squares fit, rounded to 3 digits', () => {
+    expect(VIA_CROWDING_FIT).toBeCloseTo(fitViaCrowding(data.vias), 3);
+  });
+
+  for (const c of cases) {
+    it(`${c.name} (h/d ${c.hOverD.toFixed(2)}, w/h ${c.wOverH.toFixed(2)}): design model within ±10 %`, () => {
+      expect(Math.abs(c.designNh / c.measuredNh - 1)).toBeLessThan(0.1);
+    });
+  }
+
+  it('Goldfarb–Pucel alone is over 20 % low for strips twice the height wide (why the correction exists)', () => {
+    const wide = cases.filter((c) => c.wOverH > 2);
+    expect(wide.length).toBeGreaterThanOrEqual(5);
+    for (const c of wide) expect(c.goldfarbPucelNh / c.measuredNh).toBeLessThan(0.8);
+  });
+});
