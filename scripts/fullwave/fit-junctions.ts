@@ -29,7 +29,7 @@ for (const record of data.crosses) {
 console.log(`\nvias: crowding coefficient in src ${VIA_CROWDING_FIT}, least squares ${fitViaCrowding(data.vias).toFixed(4)}`);
 for (const v of viaComparisons(data.vias)) {
   console.log(
-    `${v.name.padEnd(24)} h/d ${fixed(v.hOverD, 2).padStart(5)}  w/h ${fixed(v.wOverH, 2)}  measured ${fixed(v.measuredNh, 4)} nH  ` +
+    `${v.name.padEnd(24)} ${v.use.padEnd(6)}h/d ${fixed(v.hOverD, 2).padStart(5)}  w/h ${fixed(v.wOverH, 2)}  measured ${fixed(v.measuredNh, 4)} nH  ` +
       `Goldfarb–Pucel ${fixed(v.goldfarbPucelNh, 4)} nH (${fixed(100 * (v.goldfarbPucelNh / v.measuredNh - 1), 1)} %)  design model ${fixed(v.designNh, 4)} nH (${fixed(100 * (v.designNh / v.measuredNh - 1), 1)} %)`,
   );
 }

@@ -32,6 +32,8 @@ export interface CrossRecord {
 }
 export interface ViaRecord {
   readonly name: string;
+  /** "fit": used by the fit; "check": run after the fit and kept out of it. */
+  readonly use: 'fit' | 'check';
   readonly substrate: SubstrateRecord;
   readonly frequency_hz: number;
   readonly line: { readonly width_m: number };
@@ -181,6 +183,7 @@ export function nelderMead(f: (x: readonly number[]) => number, x0: readonly num
 
 export interface ViaComparison {
   readonly name: string;
+  readonly use: 'fit' | 'check';
   readonly hOverD: number;
   readonly wOverH: number;
   readonly measuredNh: number;
@@ -192,6 +195,7 @@ export interface ViaComparison {
 export function viaComparisons(records: readonly ViaRecord[]): ViaComparison[] {
   return records.map((r) => ({
     name: r.name,
+    use: r.use,
     hOverD: r.substrate.height_m / r.via.drill_m,
     wOverH: r.line.width_m / r.substrate.height_m,
     measuredNh: r.inductance_nh_at_f0,
@@ -202,12 +206,12 @@ export function viaComparisons(records: readonly ViaRecord[]): ViaComparison[] {
 
 /**
  * The crowding coefficient k of L = L_GP + (μ0/2π)·k·max(w − pad, 0) that minimises the squared
- * relative error over the extracted vias (linear least squares, closed form).
+ * relative error over the extracted vias marked "fit" (linear least squares, closed form).
  */
 export function fitViaCrowding(records: readonly ViaRecord[]): number {
   let num = 0;
   let den = 0;
-  for (const r of records) {
+  for (const r of records.filter((v) => v.use === 'fit')) {
     const measured = r.inductance_nh_at_f0 * 1e-9;
     const gp = viaInductanceGoldfarbPucel(r.substrate.height_m, r.via.drill_m);
     const c = (MU0 / (2 * Math.PI)) * Math.max(r.line.width_m - r.via.pad_m, 0);

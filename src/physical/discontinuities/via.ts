@@ -21,7 +21,9 @@ export function viaInductanceGoldfarbPucel(height: number, drill: number): numbe
  * inductance plus (μ0/2π)·k·(w − pad) when the strip is wider than the pad. The current has to
  * crowd in from the strip's width onto the pad, which the barrel formula leaves out. Eleven cases
  * (εr 2.2–10.2, h 0.254–1.6 mm, drill 0.2–0.8 mm, w/h 0.8–5.2) give k = 0.283 with every case within
- * ±6 %; Goldfarb–Pucel alone was 0–52 % low. Least squares in relative error; rounded to 3 digits.
+ * ±8 % (a twelfth, held out of the fit, −4.6 %); Goldfarb–Pucel alone was up to 52 % low. Strips
+ * narrower than the pad get no term (the one such case measured 8 % below Goldfarb–Pucel). Least
+ * squares in relative error; rounded to 3 digits.
  */
 export const VIA_CROWDING_FIT = 0.283;
 
