@@ -223,11 +223,7 @@ def cross_matrices(run1, run3):
 
 def extract_cross(p, work, reuse):
     jobs = [(p, e, os.path.join(work, p['name'], f'excite-{e}')) for e in (1, 3)]
-    if reuse and all(os.path.exists(os.path.join(j[2], 'ports.npy')) for j in jobs):
-        runs = [np.load(os.path.join(j[2], 'ports.npy'), allow_pickle=True).item() for j in jobs]
-    else:
-        with mp.get_context('fork').Pool(2) as pool:
-            runs = pool.map(run_cross, jobs)
+    runs = fw.run_or_reuse(run_cross, jobs, reuse)
     run1, run3 = runs
     freq = run1['freq']
     v, i = cross_matrices(run1, run3)

@@ -14,3 +14,4 @@ for spec in "$here"/specs/*.yaml; do
 done
 # One design again with the copper drawn as a solid of the stackup's thickness (README, Limits).
 /usr/bin/python3 "$here/simulate.py" "$work/designs/fw-5g8-hc-open" --thick --spec "$here/specs/fw-5g8-hc-open.yaml" --work "$work"
+/usr/bin/python3 "$here/simulate.py" "$work/designs/fw-2g4-short-d400" --thick --spec "$here/specs/fw-2g4-short-d400.yaml" --work "$work"

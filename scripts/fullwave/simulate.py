@@ -328,17 +328,22 @@ def model_minimum(folder):
     return fs[k]
 
 
+def run_or_reuse(worker, jobs, reuse):
+    """Runs the jobs two at a time (one thread each), or with `reuse` reads each job's saved
+    ports.npy (the job's third element is its run folder) when all of them exist."""
+    if reuse and all(os.path.exists(os.path.join(j[2], 'ports.npy')) for j in jobs):
+        return [np.load(os.path.join(j[2], 'ports.npy'), allow_pickle=True).item() for j in jobs]
+    with mp.get_context('fork').Pool(2) as pool:
+        return pool.map(worker, jobs)
+
+
 def simulate(folder, work, threads, reuse, refine=2.0, thick=False):
     design = read_design(folder)
     name = design['name']
     plan = plan_model(design, refine, thick)
     tag = name + ('' if refine == 1.0 else f'-refine{refine:g}') + ('-thick' if thick else '')
     jobs = [(plan, role, os.path.join(work, tag, 'excite-' + role), threads) for role in ('source', 'load')]
-    if reuse and all(os.path.exists(os.path.join(j[2], 'ports.npy')) for j in jobs):
-        runs = [np.load(os.path.join(j[2], 'ports.npy'), allow_pickle=True).item() for j in jobs]
-    else:
-        with mp.get_context('fork').Pool(2) as pool:
-            runs = pool.map(run_one, jobs)
+    runs = run_or_reuse(run_one, jobs, reuse)
     run_src, run_load = runs
     freq = run_src['freq']
     z = impedance_matrix(run_src, run_load)
