@@ -3,9 +3,10 @@
 
 Usage:
     /usr/bin/python3 scripts/fullwave/extract_junctions.py cross [NAME ...] [--work DIR] [--reuse]
+    /usr/bin/python3 scripts/fullwave/extract_junctions.py tee   [NAME ...] [--work DIR] [--reuse]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py via   [NAME ...] [--work DIR] [--reuse]
 
-Each case is one bare structure of our own choosing (the CROSSES and VIAS tables below). Widths
+Each case is one bare structure of our own choosing (the CROSSES, TEES and VIAS tables below). Widths
 come from tunestrip's own line synthesis (zero-thickness copper), through the built CLI in dist/.
 The results go into scripts/fullwave/junctions.json, one entry per case, keyed by name; the fit
 (scripts/fullwave/fit-junctions.ts) and the tests read that file and never run openEMS.
@@ -67,6 +68,16 @@ CROSSES = [
     ('cross-er10-635-50-50-4g0', 10.2, 0.635, 50, 50, 4.0),
     ('cross-er338-305-50-70-10g', 3.38, 0.305, 50, 70, 10.0),
     ('cross-fr4-1600-50-50-5g0', 4.4, 1.6, 50, 50, 5.0),
+]
+# T-junctions, as the crosses: not fitted, a check of Hammerstad's closed-form T (tunestrip's model
+# for single stubs). The first repeats the geometry of physics.md §4.2's 3-port extraction.
+TEES = [
+    ('tee-fr4-1600-50-50-2g4', 4.4, 1.6, 50, 50, 2.4),
+    ('tee-fr4-1600-50-50-5g0', 4.4, 1.6, 50, 50, 5.0),
+    ('tee-er10-635-50-50-8g0', 10.2, 0.635, 50, 50, 8.0),
+    ('tee-ptfe-787-50-70-4g2', 2.2, 0.787, 50, 70, 4.2),
+    ('tee-hc-508-50-50-5g8', 3.66, 0.508, 50, 50, 5.8),
+    ('tee-er3-760-50-35-3g5', 3.0, 0.76, 50, 35, 3.5),
 ]
 # Vias: (name, εr, h mm, drill mm, pad mm, f0 GHz, line Z0 Ω). The first repeats physics.md §4.4's
 # line-ending-in-via case; the last four vary the strip width against the height (w/h) apart from εr.
@@ -145,7 +156,7 @@ def new_fdtd(f0, mesh):
 # Cross
 
 
-def plan_cross(case):
+def plan_cross(case, arms=4):
     name, er, h, z_main, z_stub, f_ghz = case
     f0 = f_ghz * 1e9
     wm = synthesize_width(er, h, z_main, f_ghz)
@@ -164,13 +175,13 @@ def plan_cross(case):
     mesh_y = symmetric(thirds(wm / 2, 1, fine) + [ay, ay + 3 * res], res, inner, wm / 2 + 2 * fine, tol)
     z_sub = list(np.linspace(0, h, max(2, round(fw.SUBSTRATE_CELLS * REFINE)) + 1))
     mesh_z = [float(v) for v in SmoothMeshLines(z_sub + [h + air], res, fw.GROWTH)]
-    return {'name': name, 'er': er, 'h': h, 'f0': f0, 'wm': wm, 'ws': ws, 'z_main': z_main, 'z_stub': z_stub,
+    return {'name': name, 'arms': arms, 'er': er, 'h': h, 'f0': f0, 'wm': wm, 'ws': ws, 'z_main': z_main, 'z_stub': z_stub,
             'ax': ax, 'ay': ay, 'meas': meas, 'res': res, 'fine': fine,
             'mesh': {'x': mesh_x, 'y': mesh_y, 'z': mesh_z}}
 
 
 def cross_ports(fdtd, copper, p, excite):
-    """Ports 1 (−x), 2 (+x), 3 (+y), 4 (−y); each box runs from the arm's end to the other arm's edge."""
+    """Ports 1 (−x), 2 (+x), 3 (+y), 4 (−y, crosses only); each box runs from the arm's end to the other arm's edge."""
     h, wm, ws, ax, ay = p['h'], p['wm'], p['ws'], p['ax'], p['ay']
     specs = {
         1: ([-ax, -wm / 2, h], [-ws / 2, wm / 2, 0], 'x', ax),
@@ -179,7 +190,7 @@ def cross_ports(fdtd, copper, p, excite):
         4: ([-ws / 2, -ay, h], [ws / 2, -wm / 2, 0], 'y', ay),
     }
     ports = {}
-    for n, (start, stop, direction, to_centre) in specs.items():
+    for n, (start, stop, direction, to_centre) in list(specs.items())[:p['arms']]:
         arm = abs(stop['xy'.index(direction)] - start['xy'.index(direction)])
         ports[n] = (fdtd.AddMSLPort(n, copper, start, stop, direction, 'z', excite=1 if n == excite else 0,
                                     MeasPlaneShift=arm - p['meas'], FeedShift=0, Feed_R=50, priority=10), to_centre)
@@ -194,7 +205,7 @@ def run_cross(args):
     copper = csx.AddMetal('copper')
     h, wm, ws, ax, ay = p['h'], p['wm'], p['ws'], p['ax'], p['ay']
     copper.AddBox([-ax, -wm / 2, h], [ax, wm / 2, h], priority=10)
-    copper.AddBox([-ws / 2, -ay, h], [ws / 2, ay, h], priority=10)
+    copper.AddBox([-ws / 2, -ay if p['arms'] == 4 else 0, h], [ws / 2, ay, h], priority=10)
     ports = cross_ports(fdtd, copper, p, excite)
     seconds = run_fdtd(fdtd, csx, sim_path)
     freq = np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS)
@@ -206,16 +217,18 @@ def run_cross(args):
     return out
 
 
-def cross_matrices(run1, run3):
-    """Full V and I (4×4 per frequency) from runs 1 and 3 and the cross's two mirror symmetries."""
+def cross_matrices(run1, run3, arms=4):
+    """Full V and I (arms × arms per frequency) from runs 1 and 3 and the mirror symmetries (x → −x
+    for both; y → −y for the cross)."""
     n = len(run1['freq'])
-    v = np.zeros((n, 4, 4), complex)
-    i = np.zeros((n, 4, 4), complex)
+    v = np.zeros((n, arms, arms), complex)
+    i = np.zeros((n, arms, arms), complex)
     swap_x = [2, 1, 3, 4]   # mirror x → −x: excitation of port 2 seen as port 1's
     swap_y = [1, 2, 4, 3]   # mirror y → −y: excitation of port 4 seen as port 3's
+    columns = ((run1, [1, 2, 3, 4]), (run1, swap_x), (run3, [1, 2, 3, 4]), (run3, swap_y))[:arms]
     for k in range(n):
-        for col, (run, perm) in enumerate(((run1, [1, 2, 3, 4]), (run1, swap_x), (run3, [1, 2, 3, 4]), (run3, swap_y))):
-            for row in range(4):
+        for col, (run, perm) in enumerate(columns):
+            for row in range(arms):
                 v[k, row, col] = run[perm[row]]['v'][k]
                 i[k, row, col] = run[perm[row]]['i'][k]
     return v, i
@@ -226,18 +239,22 @@ def extract_cross(p, work, reuse):
     runs = fw.run_or_reuse(run_cross, jobs, reuse)
     run1, run3 = runs
     freq = run1['freq']
-    v, i = cross_matrices(run1, run3)
+    arms = p['arms']
+    v, i = cross_matrices(run1, run3, arms)
     z = np.array([v[k] @ np.linalg.inv(i[k]) for k in range(len(freq))])
     z_main = np.real(run1[1]['zl'])
     z_stub = np.real(run3[3]['zl'])
     s = []
     for k in range(len(freq)):
-        r = np.diag([z_main[k], z_main[k], z_stub[k], z_stub[k]])
+        r = np.diag([z_main[k], z_main[k], z_stub[k], z_stub[k]][:arms])
         root = np.sqrt(r)
         s.append(np.linalg.inv(root) @ (z[k] - r) @ np.linalg.inv(z[k] + r) @ root)
     s = np.array(s)
     reciprocity = float(np.max(np.abs(z - np.transpose(z, (0, 2, 1)))) / np.max(np.abs(z)))
-    symmetry = float(np.max(np.abs(run1[3]['v'] - run1[4]['v']) / np.abs(run1[3]['v'])))
+    if arms == 4:  # y mirror: the two stubs see the same when a main arm is driven
+        symmetry = float(np.max(np.abs(run1[3]['v'] - run1[4]['v']) / np.abs(run1[3]['v'])))
+    else:  # x mirror: the two main arms see the same when the stub is driven
+        symmetry = float(np.max(np.abs(run3[1]['v'] - run3[2]['v']) / np.abs(run3[1]['v'])))
     k_of = lambda f: 2 * math.pi * f / C0  # noqa: E731
     return {
         'name': p['name'],
@@ -354,10 +371,10 @@ def extract_via(p, work, reuse):
 
 
 def save(kind, entry):
-    data = {'solver': fw.openems_version(), 'crosses': [], 'vias': []}
+    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'vias': []}
     if os.path.exists(RESULTS):
         with open(RESULTS, encoding='utf8') as f:
-            data = json.load(f)
+            data = {**data, **json.load(f)}
     data['solver'] = fw.openems_version()
     data[kind] = sorted([d for d in data[kind] if d['name'] != entry['name']] + [entry], key=lambda d: d['name'])
     with open(RESULTS + '.tmp', 'w', encoding='utf8') as f:
@@ -368,20 +385,20 @@ def save(kind, entry):
 
 def main():
     ap = argparse.ArgumentParser(description=__doc__.split('\n')[0])
-    ap.add_argument('kind', choices=['cross', 'via'])
+    ap.add_argument('kind', choices=['cross', 'tee', 'via'])
     ap.add_argument('names', nargs='*', help='cases to run (default: all of that kind)')
     ap.add_argument('--work', default='/tmp/fullwave-junctions')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
     ap.add_argument('--parallel', type=int, default=1, help='via cases run side by side (one thread each)')
     args = ap.parse_args()
-    table = CROSSES if args.kind == 'cross' else VIAS
+    table = {'cross': CROSSES, 'tee': TEES, 'via': VIAS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
     if args.names and len(cases) != len(args.names):
         raise SystemExit('unknown case name; known: ' + ', '.join(c[0] for c in table))
-    if args.kind == 'cross':
+    if args.kind in ('cross', 'tee'):
         for c in cases:
-            entry = extract_cross(plan_cross(c), args.work, args.reuse)
-            save('crosses', entry)
+            entry = extract_cross(plan_cross(c, 4 if args.kind == 'cross' else 3), args.work, args.reuse)
+            save('crosses' if args.kind == 'cross' else 'tees', entry)
             print(json.dumps({k: entry[k] for k in ('name', 'reciprocity_error', 'symmetry_error', 'mesh', 'run_seconds')}), flush=True)
     else:
         plans = [plan_via(c) for c in cases]

@@ -26,6 +26,17 @@ for (const record of data.crosses) {
       `${fixed(own.da * 1e3, 3)}/${fixed(src.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(src.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(src.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(src.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
   );
 }
+console.log('\ntee (Hammerstad 1981, not fitted)   rms T     | at f0: d_a mm, d2 mm, n², B mS (own fit / Hammerstad)');
+for (const record of data.tees ?? []) {
+  const points = crossPoints([record]);
+  const mid = points[Math.floor(points.length / 2)]!;
+  const model = crossElements(mid, undefined);
+  const own = caseElements(mid, model);
+  console.log(
+    `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => crossElements(p, undefined)), 5).padEnd(10)}| ` +
+      `${fixed(own.da * 1e3, 3)}/${fixed(model.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(model.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(model.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(model.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
+  );
+}
 console.log(`\nvias: crowding coefficient in src ${VIA_CROWDING_FIT}, least squares ${fitViaCrowding(data.vias).toFixed(4)}`);
 for (const v of viaComparisons(data.vias)) {
   console.log(

@@ -7,7 +7,8 @@
 // main arms through ideal transformers n², reference planes d_a and d2), seen from the cross's
 // centre-lines, is compared with the extracted S matrix in the even mode of the two stubs (the only
 // mode a balanced stub pair drives). The four coefficients of `crossJunctionFitted` are chosen by
-// least squares over every case and frequency.
+// least squares over every case and frequency. T-junctions are compared the same way (3 ports), as
+// a check of Hammerstad's closed form; nothing is fitted to them.
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -42,7 +43,14 @@ export interface ViaRecord {
   readonly inductance_nh: readonly number[];
   readonly inductance_nh_at_f0: number;
 }
-export interface JunctionData { readonly solver: string; readonly crosses: readonly CrossRecord[]; readonly vias: readonly ViaRecord[] }
+/** A T-junction extraction has the same fields as a cross's, with a 3 × 3 S (ports 1, 2 main, 3 stub). */
+export type TeeRecord = CrossRecord;
+export interface JunctionData {
+  readonly solver: string;
+  readonly crosses: readonly CrossRecord[];
+  readonly tees: readonly TeeRecord[];
+  readonly vias: readonly ViaRecord[];
+}
 
 const here = dirname(fileURLToPath(import.meta.url));
 export const JUNCTIONS_FILE = join(here, 'junctions.json');
@@ -69,13 +77,15 @@ function evenMode(s: Matrix): Matrix {
   return [0, 1, 2].map((i) => [0, 1, 2].map((k) => (i < 2 ? half[i]![k]! : scale(add(half[2]![k]!, half[3]![k]!), Math.SQRT1_2))));
 }
 
-export function measuredEvenS(record: CrossRecord, k: number): Matrix {
+/** The recorded S at frequency k: a tee's as it is, a cross's in the even mode of its stubs. */
+export function measuredS(record: CrossRecord, k: number): Matrix {
   const s = record.s_re[k]!.map((row, i) => row.map((re, j) => complex(re, record.s_im[k]![i]![j]!)));
-  return evenMode(s);
+  return s.length === 4 ? evenMode(s) : s;
 }
 
-/** Line properties of one cross case at one frequency, computed once per fit. */
+/** Line properties of one cross or tee case at one frequency, computed once per fit. */
 export interface CrossPoint {
+  readonly arms: 3 | 4;
   readonly substrate: Substrate;
   readonly main: LineProperties;
   readonly stub: LineProperties;
@@ -86,10 +96,11 @@ export function crossPoints(records: readonly CrossRecord[]): CrossPoint[] {
   return records.flatMap((r) => {
     const substrate = substrateOf(r.substrate);
     return r.freq_hz.map((f, k) => ({
+      arms: r.s_re[k]!.length === 4 ? (4 as const) : (3 as const),
       substrate,
       main: analyseMicrostrip(r.main.width_m, substrate, f),
       stub: analyseMicrostrip(r.stub.width_m, substrate, f),
-      measured: measuredEvenS(r, k),
+      measured: measuredS(r, k),
     }));
   });
 }
@@ -97,14 +108,14 @@ export function crossPoints(records: readonly CrossRecord[]): CrossPoint[] {
 export interface JunctionElements { readonly da: number; readonly d2: number; readonly n2: number; readonly susceptance: number }
 
 /**
- * S of the equivalent circuit seen from the cross's centre-lines, in the even mode. At the node the
- * four arms present G_k = 1/(n_k²·Z_k) (a transformer renormalises without reflecting), so
+ * S of the equivalent circuit seen from the junction's centre-lines (a cross's in the even mode). At
+ * the node the arms present G_k = 1/(n_k²·Z_k) (a transformer renormalises without reflecting), so
  * S_node = 2·√(G_i·G_j)/(ΣG + jB) − δ_ij; each arm then adds its line from the centre-line to its
  * reference plane, of length −d_a (main) or −d2 (stub).
  */
-export function modelEvenS(point: CrossPoint, j: JunctionElements): Matrix {
+export function modelS(point: CrossPoint, j: JunctionElements): Matrix {
   const { main, stub } = point;
-  const g = [1 / (j.n2 * main.z0), 1 / (j.n2 * main.z0), 1 / stub.z0, 1 / stub.z0];
+  const g = [1 / (j.n2 * main.z0), 1 / (j.n2 * main.z0), 1 / stub.z0, 1 / stub.z0].slice(0, point.arms);
   const total = complex(g.reduce((a, b) => a + b, 0), j.susceptance);
   const phase = [main.beta * j.da, main.beta * j.da, stub.beta * j.d2, stub.beta * j.d2];
   const s = g.map((gi, i) =>
@@ -113,7 +124,7 @@ export function modelEvenS(point: CrossPoint, j: JunctionElements): Matrix {
       return mul(node, exp(complex(0, phase[i]! + phase[k]!)));
     }),
   );
-  return evenMode(s);
+  return point.arms === 4 ? evenMode(s) : s;
 }
 
 export function crossElements(point: CrossPoint, fit: CrossFit | undefined): JunctionElements {
@@ -123,11 +134,11 @@ export function crossElements(point: CrossPoint, fit: CrossFit | undefined): Jun
   return { da: j.da, d2: j.d2, n2: j.n2a, susceptance: j.susceptance };
 }
 
-/** Root-mean-square difference of the even-mode S elements over the points (9 per point). */
+/** Root-mean-square difference of the (even-mode) S elements over the points (9 per point). */
 export function rmsError(points: readonly CrossPoint[], elementsOf: (p: CrossPoint) => JunctionElements): number {
   let sum = 0;
   for (const p of points) {
-    const model = modelEvenS(p, elementsOf(p));
+    const model = modelS(p, elementsOf(p));
     for (let i = 0; i < 3; i += 1) for (let k = 0; k < 3; k += 1) sum += abs(sub(model[i]![k]!, p.measured[i]![k]!)) ** 2;
   }
   return Math.sqrt(sum / (9 * points.length));
