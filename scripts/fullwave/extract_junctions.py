@@ -1,13 +1,14 @@
 #!/usr/bin/python3
-"""Full-wave (openEMS FDTD) extraction of the two discontinuities tunestrip fits to its own runs.
+"""Full-wave (openEMS FDTD) extractions of the discontinuities tunestrip fits to, or checks against, its own runs.
 
 Usage:
     /usr/bin/python3 scripts/fullwave/extract_junctions.py cross [NAME ...] [--work DIR] [--reuse]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py tee   [NAME ...] [--work DIR] [--reuse]
+    /usr/bin/python3 scripts/fullwave/extract_junctions.py open  [NAME ...] [--parallel 2]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py via   [NAME ...] [--work DIR] [--reuse]
 
-Each case is one bare structure of our own choosing (the CROSSES, TEES and VIAS tables below). Widths
-come from tunestrip's own line synthesis (zero-thickness copper), through the built CLI in dist/.
+Each case is one bare structure of our own choosing (the CROSSES, TEES, OPEN_ENDS and VIAS tables
+below). Widths come from tunestrip's own line synthesis (zero-thickness copper), through the built CLI in dist/.
 The results go into scripts/fullwave/junctions.json, one entry per case, keyed by name; the fit
 (scripts/fullwave/fit-junctions.ts) and the tests read that file and never run openEMS.
 
@@ -78,6 +79,14 @@ TEES = [
     ('tee-ptfe-787-50-70-4g2', 2.2, 0.787, 50, 70, 4.2),
     ('tee-hc-508-50-50-5g8', 3.66, 0.508, 50, 50, 5.8),
     ('tee-er3-760-50-35-3g5', 3.0, 0.76, 50, 35, 3.5),
+]
+# Open ends: (name, εr, h mm, line Z0 Ω, f0 GHz). A check of Kirschning–Jansen–Koster's open-end
+# extension; nothing is fitted to it.
+OPEN_ENDS = [
+    ('open-er10-635-z50-8g0', 10.2, 0.635, 50, 8.0),
+    ('open-fr4-1600-z50-2g4', 4.4, 1.6, 50, 2.4),
+    ('open-hc-508-z50-5g8', 3.66, 0.508, 50, 5.8),
+    ('open-ptfe-787-z70-4g2', 2.2, 0.787, 70, 4.2),
 ]
 # Vias: (name, εr, h mm, drill mm, pad mm, f0 GHz, line Z0 Ω). The first repeats physics.md §4.4's
 # line-ending-in-via case; the last four vary the strip width against the height (w/h) apart from εr.
@@ -370,8 +379,83 @@ def extract_via(p, work, reuse):
     }
 
 
+# ---------------------------------------------------------------------------------------------
+# Open end of a line
+
+
+def plan_open(case):
+    name, er, h, z0, f_ghz = case
+    f0 = f_ghz * 1e9
+    w = synthesize_width(er, h, z0, f_ghz)
+    f_max = fw.BAND[1] * f0 * 1.25
+    res = C0 / (f_max * math.sqrt(er)) / fw.UNIT / fw.CELLS_PER_WAVELENGTH / REFINE
+    fine = min(w / fw.EDGE_CELLS_PER_WIDTH, h / 2) / REFINE
+    meas = max(6 * h, 3 * w, 4.0)
+    x_far = -(2 * meas + 2 * res)   # the line runs from x_far to its open end at x = 0
+    margin = max(10 * h, 3 * w, 8.0)
+    air = max(12 * h, 8.0)
+    tol = fine / 4
+    inner = min(res, w / fw.CELLS_ACROSS_WIDTH / REFINE)
+    core_x = SmoothMeshLines(fw.merge(thirds(0.0, 1, fine) + [x_far], tol), inner, fw.GROWTH)
+    mesh_x = SmoothMeshLines(fw.merge(list(core_x), tol / 2) + [x_far - 3 * res, margin], res, fw.GROWTH)
+    ys_pos = thirds(w / 2, 1, fine)
+    core_y = SmoothMeshLines(fw.merge(ys_pos + [-v for v in ys_pos], tol), inner, fw.GROWTH)
+    mesh_y = SmoothMeshLines(fw.merge(list(core_y), tol / 2) + [-(w / 2 + margin), w / 2 + margin], res, fw.GROWTH)
+    z_sub = list(np.linspace(0, h, max(2, round(fw.SUBSTRATE_CELLS * REFINE)) + 1))
+    mesh_z = SmoothMeshLines(z_sub + [h + air], res, fw.GROWTH)
+    return {'name': name, 'er': er, 'h': h, 'f0': f0, 'z0': z0, 'w': w, 'x_far': x_far, 'meas': meas, 'res': res, 'fine': fine,
+            'mesh': {a: [float(v) for v in m] for a, m in (('x', mesh_x), ('y', mesh_y), ('z', mesh_z))}}
+
+
+def run_open(args):
+    p, sim_path = args
+    fdtd, csx = new_fdtd(p['f0'], p['mesh'])
+    mx, my = p['mesh']['x'], p['mesh']['y']
+    h, w = p['h'], p['w']
+    csx.AddMaterial('substrate', epsilon=p['er']).AddBox([mx[0], my[0], 0], [mx[-1], my[-1], h], priority=0)
+    copper = csx.AddMetal('copper')
+    copper.AddBox([p['x_far'], -w / 2, h], [0, w / 2, h], priority=10)
+    arm = abs(p['x_far'])
+    port = fdtd.AddMSLPort(1, copper, [p['x_far'], -w / 2, h], [0, w / 2, 0], 'x', 'z', excite=1,
+                           MeasPlaneShift=arm - p['meas'], FeedShift=0, Feed_R=50, priority=10)
+    seconds = run_fdtd(fdtd, csx, sim_path)
+    freq = np.linspace(0.5 * p['f0'], 1.5 * p['f0'], 11)
+    port.CalcPort(sim_path, freq, ref_plane_shift=arm)
+    out = {'seconds': seconds, 'freq': freq, 'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
+    return out
+
+
+def extract_open(p, work, reuse):
+    sim_path = os.path.join(work, p['name'])
+    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
+        run = np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
+    else:
+        run = run_open((p, sim_path))
+    freq = run['freq']
+    y = run['i'] / run['v']
+    # The end's capacitance as a line extension: tan(β·Δl) = B·Z (the port line's own β and Z).
+    extension = np.arctan(np.imag(y) * np.real(run['zl'])) / np.real(run['beta'])
+    k0 = len(freq) // 2
+    return {
+        'name': p['name'],
+        'substrate': {'er': p['er'], 'height_m': p['h'] * 1e-3, 'copper_m': 0.0, 'tan_delta': 0.0},
+        'frequency_hz': p['f0'],
+        'line': {'z0_target_ohm': p['z0'], 'width_m': p['w'] * 1e-3},
+        'freq_hz': [float(f) for f in freq],
+        'g_s': np.real(y).round(8).tolist(),
+        'b_s': np.imag(y).round(8).tolist(),
+        'extension_m': (extension).round(9).tolist(),
+        'extension_m_at_f0': round(float(extension[k0]), 9),
+        'fdtd_line_z_ohm_at_f0': round(float(np.real(run['zl'][k0])), 4),
+        'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
+                 'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'run_seconds': round(run['seconds'], 1),
+    }
+
+
 def save(kind, entry):
-    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'vias': []}
+    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'open_ends': [], 'vias': []}
     if os.path.exists(RESULTS):
         with open(RESULTS, encoding='utf8') as f:
             data = {**data, **json.load(f)}
@@ -385,13 +469,13 @@ def save(kind, entry):
 
 def main():
     ap = argparse.ArgumentParser(description=__doc__.split('\n')[0])
-    ap.add_argument('kind', choices=['cross', 'tee', 'via'])
+    ap.add_argument('kind', choices=['cross', 'tee', 'open', 'via'])
     ap.add_argument('names', nargs='*', help='cases to run (default: all of that kind)')
     ap.add_argument('--work', default='/tmp/fullwave-junctions')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
     ap.add_argument('--parallel', type=int, default=1, help='via cases run side by side (one thread each)')
     args = ap.parse_args()
-    table = {'cross': CROSSES, 'tee': TEES, 'via': VIAS}[args.kind]
+    table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
     if args.names and len(cases) != len(args.names):
         raise SystemExit('unknown case name; known: ' + ', '.join(c[0] for c in table))
@@ -400,6 +484,16 @@ def main():
             entry = extract_cross(plan_cross(c, 4 if args.kind == 'cross' else 3), args.work, args.reuse)
             save('crosses' if args.kind == 'cross' else 'tees', entry)
             print(json.dumps({k: entry[k] for k in ('name', 'reciprocity_error', 'symmetry_error', 'mesh', 'run_seconds')}), flush=True)
+    elif args.kind == 'open':
+        plans = [plan_open(c) for c in cases]
+        if args.parallel > 1 and not args.reuse:
+            with mp.get_context('fork').Pool(args.parallel) as pool:
+                pool.map(run_open, [(p, os.path.join(args.work, p['name'])) for p in plans])
+            args.reuse = True
+        for p in plans:
+            entry = extract_open(p, args.work, args.reuse)
+            save('open_ends', entry)
+            print(json.dumps({k: entry[k] for k in ('name', 'extension_m_at_f0', 'run_seconds')}), flush=True)
     else:
         plans = [plan_via(c) for c in cases]
         if args.parallel > 1 and not args.reuse:

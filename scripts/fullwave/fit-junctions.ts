@@ -4,7 +4,7 @@
 //
 //   npx tsx scripts/fullwave/fit-junctions.ts [junctions.json]
 import { CROSS_FIT, VIA_CROWDING_FIT } from '../../src/physical/discontinuities/index.js';
-import { caseElements, crossElements, crossPoints, fitCross, fitViaCrowding, readJunctions, rmsError, viaComparisons } from './junction-fit.js';
+import { openEndComparisons, caseElements, crossElements, crossPoints, fitCross, fitViaCrowding, readJunctions, rmsError, viaComparisons } from './junction-fit.js';
 
 const data = readJunctions(process.argv[2]);
 const fixed = (v: number, d: number): string => v.toFixed(d);
@@ -36,6 +36,10 @@ for (const record of data.tees ?? []) {
     `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => crossElements(p, undefined)), 5).padEnd(10)}| ` +
       `${fixed(own.da * 1e3, 3)}/${fixed(model.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(model.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(model.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(model.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
   );
+}
+console.log('\nopen ends (Kirschning–Jansen–Koster 1981, not fitted)');
+for (const o of openEndComparisons(data.open_ends ?? [])) {
+  console.log(`${o.name.padEnd(26)} Δl/h measured ${fixed(o.measured / o.height, 4)}  model ${fixed(o.model / o.height, 4)}  (${fixed(100 * (o.model / o.measured - 1), 1)} %)`);
 }
 console.log(`\nvias: crowding coefficient in src ${VIA_CROWDING_FIT}, least squares ${fitViaCrowding(data.vias).toFixed(4)}`);
 for (const v of viaComparisons(data.vias)) {

@@ -14,7 +14,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { abs, add, complex, div, exp, mul, scale, sub, type Complex } from '../../src/math/complex.js';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { crossJunctionFitted, tJunctionHammerstad, viaInductanceDesign, viaInductanceGoldfarbPucel, type CrossFit } from '../../src/physical/discontinuities/index.js';
+import { crossJunctionFitted, openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign, viaInductanceGoldfarbPucel, type CrossFit } from '../../src/physical/discontinuities/index.js';
 import { MU0 } from '../../src/physical/microstrip/index.js';
 import type { LineProperties, Substrate } from '../../src/seams.js';
 
@@ -45,10 +45,18 @@ export interface ViaRecord {
 }
 /** A T-junction extraction has the same fields as a cross's, with a 3 × 3 S (ports 1, 2 main, 3 stub). */
 export type TeeRecord = CrossRecord;
+export interface OpenEndRecord {
+  readonly name: string;
+  readonly substrate: SubstrateRecord;
+  readonly frequency_hz: number;
+  readonly line: { readonly width_m: number };
+  readonly extension_m_at_f0: number;
+}
 export interface JunctionData {
   readonly solver: string;
   readonly crosses: readonly CrossRecord[];
   readonly tees: readonly TeeRecord[];
+  readonly open_ends: readonly OpenEndRecord[];
   readonly vias: readonly ViaRecord[];
 }
 
@@ -230,4 +238,13 @@ export function fitViaCrowding(records: readonly ViaRecord[]): number {
     den += (c / measured) ** 2;
   }
   return num / den;
+}
+
+/** Each extracted open-end extension at f0 beside Kirschning–Jansen–Koster's for the same line. */
+export function openEndComparisons(records: readonly OpenEndRecord[]): { name: string; height: number; measured: number; model: number }[] {
+  return records.map((r) => {
+    const substrate = substrateOf(r.substrate);
+    const line = analyseMicrostrip(r.line.width_m, substrate, r.frequency_hz);
+    return { name: r.name, height: r.substrate.height_m, measured: r.extension_m_at_f0, model: openEndExtensionKJK(line, substrate) };
+  });
 }
