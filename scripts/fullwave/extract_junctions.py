@@ -473,7 +473,7 @@ def main():
     ap.add_argument('names', nargs='*', help='cases to run (default: all of that kind)')
     ap.add_argument('--work', default='/tmp/fullwave-junctions')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
-    ap.add_argument('--parallel', type=int, default=1, help='via cases run side by side (one thread each)')
+    ap.add_argument('--parallel', type=int, default=1, help='open-end or via cases run side by side (one thread each)')
     args = ap.parse_args()
     table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
@@ -484,27 +484,20 @@ def main():
             entry = extract_cross(plan_cross(c, 4 if args.kind == 'cross' else 3), args.work, args.reuse)
             save('crosses' if args.kind == 'cross' else 'tees', entry)
             print(json.dumps({k: entry[k] for k in ('name', 'reciprocity_error', 'symmetry_error', 'mesh', 'run_seconds')}), flush=True)
-    elif args.kind == 'open':
-        plans = [plan_open(c) for c in cases]
+    else:  # one-port cases: several side by side with --parallel
+        plan, run, extract, key, shown = {
+            'open': (plan_open, run_open, extract_open, 'open_ends', ('extension_m_at_f0',)),
+            'via': (plan_via, run_via, extract_via, 'vias', ('inductance_nh_at_f0', 'goldfarb_pucel_nh', 'ratio_to_goldfarb_pucel_at_f0')),
+        }[args.kind]
+        plans = [plan(c) for c in cases]
         if args.parallel > 1 and not args.reuse:
             with mp.get_context('fork').Pool(args.parallel) as pool:
-                pool.map(run_open, [(p, os.path.join(args.work, p['name'])) for p in plans])
+                pool.map(run, [(p, os.path.join(args.work, p['name'])) for p in plans])
             args.reuse = True
         for p in plans:
-            entry = extract_open(p, args.work, args.reuse)
-            save('open_ends', entry)
-            print(json.dumps({k: entry[k] for k in ('name', 'extension_m_at_f0', 'run_seconds')}), flush=True)
-    else:
-        plans = [plan_via(c) for c in cases]
-        if args.parallel > 1 and not args.reuse:
-            with mp.get_context('fork').Pool(args.parallel) as pool:
-                pool.map(run_via, [(p, os.path.join(args.work, p['name'])) for p in plans])
-            args.reuse = True
-        for p in plans:
-            entry = extract_via(p, args.work, args.reuse)
-            save('vias', entry)
-            print(json.dumps({k: entry[k] for k in ('name', 'inductance_nh_at_f0', 'goldfarb_pucel_nh', 'ratio_to_goldfarb_pucel_at_f0', 'run_seconds')}), flush=True)
-
+            entry = extract(p, args.work, args.reuse)
+            save(key, entry)
+            print(json.dumps({k: entry[k] for k in ('name',) + shown + ('run_seconds',)}), flush=True)
 
 if __name__ == '__main__':
     main()
