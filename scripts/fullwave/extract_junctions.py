@@ -79,6 +79,7 @@ TEES = [
     ('tee-ptfe-787-50-70-4g2', 2.2, 0.787, 50, 70, 4.2),
     ('tee-hc-508-50-50-5g8', 3.66, 0.508, 50, 50, 5.8),
     ('tee-er3-760-50-35-3g5', 3.0, 0.76, 50, 35, 3.5),
+    ('tee-er3-760-50-30-3g5', 3.0, 0.76, 50, 30, 3.5),
 ]
 # Open ends: (name, εr, h mm, line Z0 Ω, f0 GHz). A check of Kirschning–Jansen–Koster's open-end
 # extension; nothing is fitted to it.
