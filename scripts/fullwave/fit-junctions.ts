@@ -37,6 +37,15 @@ for (const record of data.tees ?? []) {
       `${fixed(own.da * 1e3, 3)}/${fixed(model.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(model.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(model.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(model.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
   );
 }
+{
+  // A candidate for later: the cross's correction form fitted to the tees. Not used by tunestrip;
+  // applying it moves every design's copper (see scripts/fullwave/README.md, second round).
+  const tees = crossPoints(data.tees ?? []);
+  if (tees.length > 0) {
+    const teeFit = fitCross(tees, { planeA: 1, stubPlaneD2: 0, n2Deficit: 1, susceptance: 0 });
+    console.log(`  candidate tee correction (cross form, not used): ${JSON.stringify(Object.fromEntries(Object.entries(teeFit.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(teeFit.rms, 5)}`);
+  }
+}
 console.log('\nopen ends (Kirschning–Jansen–Koster 1981, not fitted)');
 for (const o of openEndComparisons(data.open_ends ?? [])) {
   console.log(`${o.name.padEnd(26)} Δl/h measured ${fixed(o.measured / o.height, 4)}  model ${fixed(o.model / o.height, 4)}  (${fixed(100 * (o.model / o.measured - 1), 1)} %)`);
