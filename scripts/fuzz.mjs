@@ -68,21 +68,9 @@ async function runTarget(target, runs, seed, progressFile) {
     }
   };
 
-  // ── generators (the same families as test/property/pipeline-fuzz.test.ts, wider) ──
-  const numberText = fc.oneof(
-    fc.double().map(String),
-    fc.integer().map(String),
-    fc.constantFrom('1e308', '1e309', '-1e309', '4.9e-324', '1e-400', '0', '-0', '.5', '5.', '+3', '--3', '1e', 'NaN', 'Infinity', '0x10', '1_000', '١٢', '1,5'),
-  );
-  const UNIT_WORDS = ['mm', 'um', 'µm', 'μm', 'nm', 'm', 'cm', 'mil', 'mils', 'in', 'oz', 'Hz', 'kHz', 'MHz', 'GHz', 'THz', 'ghz', 'mHz', 'Ω', 'ohm', 'kΩ', 'S/m', 'MS/m', '', ' ', 'x', 'e', 'j'];
-  const quantityLike = fc.oneof(
-    fc.tuple(numberText, fc.constantFrom('', ' ', '\t'), fc.constantFrom(...UNIT_WORDS)).map(([n, s, u]) => `${n}${s}${u}`),
-    fc.tuple(numberText, fc.constantFrom('+', '-', ' + ', ' - '), fc.constantFrom('j', 'j ', ''), numberText, fc.constantFrom('', 'j', ' Ω', ' ohm')).map(([a, s, j, b, t]) => `${a}${s}${j}${b}${t}`),
-    fc.string({ maxLength: 24 }),
-    fc.string({ unit: 'binary', maxLength: 24 }),
-    fc.anything({ maxDepth: 2 }),
-    fc.double(),
-  );
+  // ── generators (the same families as test/property/pipeline-fuzz.test.ts, wider; the shared ones in scripts/fuzz-inputs.mjs) ──
+  const { layoutInputs, quantityLikes } = await import(pathToFileURL(join(root, 'scripts', 'fuzz-inputs.mjs')).href);
+  const quantityLike = quantityLikes(fc, { maxLength: 24, maxDepth: 2 });
   const angle = fc.double({ min: -Math.PI, max: Math.PI, noNaN: true });
   const gammaMagnitude = fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e-9, noNaN: true }), fc.double({ min: 0, max: 1, noNaN: true }), fc.double({ min: 1 - 1e-6, max: 1, noNaN: true }), fc.constant(1));
   const fromGamma = (z0, g, p) => {
@@ -176,37 +164,7 @@ async function runTarget(target, runs, seed, progressFile) {
     { weight: 1, arbitrary: fc.oneof(fc.string(), fc.string({ unit: 'binary' }), fc.string({ unit: 'grapheme' })) },
   );
 
-  const um = 1e-6;
-  const layoutInput = fc
-    .record({
-      // Widths in µm from the layout's smallest drawn width (1 µm) up.
-      seriesWidth: fc.double({ min: 1, max: 1e6, noNaN: true }),
-      seriesLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e6, noNaN: true })),
-      leadLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e6, noNaN: true })),
-      stubWidth: fc.double({ min: 1, max: 1e6, noNaN: true }),
-      stubLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e-3, noNaN: true }), fc.double({ min: 0, max: 1e6, noNaN: true })),
-      sides: fc.constantFrom(['left'], ['right'], ['left', 'right']),
-      short: fc.boolean(),
-      drill: fc.double({ min: 10, max: 2000, noNaN: true }),
-      ring: fc.double({ min: 0.1, max: 1000, noNaN: true }),
-      count: fc.integer({ min: 1, max: 8 }),
-    })
-    .map((r) => {
-      const pad = r.drill + 2 * r.ring;
-      const stubWidth = Math.max(r.stubWidth, pad);
-      const pitch = pad + 10;
-      const count = Math.max(1, Math.min(r.count, Math.floor(stubWidth / pitch) + 1));
-      return {
-        seriesWidth: r.seriesWidth * um,
-        seriesLength: r.seriesLength * um,
-        leadLength: r.leadLength * um,
-        stubWidth: stubWidth * um,
-        stubLength: r.stubLength * um,
-        stubSides: r.sides,
-        termination: r.short ? 'short' : 'open',
-        ...(r.short ? { via: { drill: r.drill * um, pad: pad * um, count, pitch: pitch * um } } : {}),
-      };
-    });
+  const layoutInput = layoutInputs(fc, { maxWidthUm: 1e6, maxLengthUm: 1e6, maxLeadUm: 1e6, drillUm: [10, 2000], ringUm: [0.1, 1000] });
 
   const checkPipeline = (text) => {
     let run;

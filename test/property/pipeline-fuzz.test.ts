@@ -10,7 +10,8 @@ import YAML from 'yaml';
 import { describe, expect, it } from 'vitest';
 import { TunestripError } from '../../src/diagnostics.js';
 import { designFromText } from '../../src/design.js';
-import { layoutStubMatch, type StubLayoutInput } from '../../src/geometry/index.js';
+import { layoutStubMatch } from '../../src/geometry/index.js';
+import { layoutInputs, quantityLikes } from '../../scripts/fuzz-inputs.mjs';
 import { complex, type Complex } from '../../src/math/complex.js';
 import { solveSingleStub } from '../../src/solve/index.js';
 import type { Presets } from '../../src/spec/index.js';
@@ -43,20 +44,7 @@ function nonFinite(value: unknown, path = '', seen = new Set<unknown>()): string
 // ───────────── unit parser ─────────────
 
 const DIMENSIONS: readonly Dimension[] = ['length', 'frequency', 'impedance', 'conductivity', 'dimensionless'];
-const UNIT_WORDS = ['mm', 'um', 'µm', 'μm', 'nm', 'm', 'cm', 'mil', 'mils', 'in', 'oz', 'Hz', 'kHz', 'MHz', 'GHz', 'THz', 'ghz', 'mHz', 'Ω', 'ohm', 'kΩ', 'S/m', 'MS/m', '', ' ', 'x', 'e', 'j'];
-const numberText = fc.oneof(
-  fc.double().map(String),
-  fc.integer().map(String),
-  fc.constantFrom('1e308', '1e309', '-1e309', '4.9e-324', '1e-400', '0', '-0', '.5', '5.', '+3', '--3', '1e', 'NaN', 'Infinity', '0x10', '1_000', '١٢', '1,5'),
-);
-const quantityLike = fc.oneof(
-  fc.tuple(numberText, fc.constantFrom('', ' ', '  ', '\t'), fc.constantFrom(...UNIT_WORDS)).map(([n, s, u]) => `${n}${s}${u}`),
-  fc.tuple(numberText, fc.constantFrom('+', '-', ' + ', ' - '), fc.constantFrom('j', 'j ', ''), numberText, fc.constantFrom('', 'j', ' Ω', ' ohm')).map(([a, s, j, b, t]) => `${a}${s}${j}${b}${t}`),
-  fc.string({ maxLength: 16 }),
-  fc.string({ unit: 'binary', maxLength: 16 }),
-  fc.anything({ maxDepth: 1 }),
-  fc.double(),
-);
+const quantityLike = quantityLikes(fc, { maxLength: 16, maxDepth: 1 });
 
 describe('unit parser fuzz (seeded)', () => {
   it('parseQuantity: a finite number or a one-line error, for every dimension', () => {
@@ -143,36 +131,7 @@ describe('solver fuzz (seeded)', () => {
 
 // ───────────── geometry ─────────────
 
-const um = 1e-6;
-const validLayout: fc.Arbitrary<StubLayoutInput> = fc
-  .record({
-    seriesWidth: fc.double({ min: 1, max: 50_000, noNaN: true }),
-    seriesLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 200_000, noNaN: true })),
-    leadLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 100_000, noNaN: true })),
-    stubWidth: fc.double({ min: 1, max: 50_000, noNaN: true }),
-    stubLength: fc.oneof(fc.constant(0), fc.double({ min: 0, max: 1e-3, noNaN: true }), fc.double({ min: 0, max: 200_000, noNaN: true })),
-    sides: fc.constantFrom<('left' | 'right')[]>(['left'], ['right'], ['left', 'right']),
-    short: fc.boolean(),
-    drill: fc.double({ min: 50, max: 1000, noNaN: true }),
-    ring: fc.double({ min: 1, max: 500, noNaN: true }),
-    count: fc.integer({ min: 1, max: 8 }),
-  })
-  .map((r) => {
-    const pad = r.drill + 2 * r.ring;
-    const stubWidth = Math.max(r.stubWidth, pad);
-    const pitch = pad + 10;
-    const count = Math.max(1, Math.min(r.count, Math.floor(stubWidth / pitch) + 1));
-    return {
-      seriesWidth: r.seriesWidth * um,
-      seriesLength: r.seriesLength * um,
-      leadLength: r.leadLength * um,
-      stubWidth: stubWidth * um,
-      stubLength: r.stubLength * um,
-      stubSides: r.sides,
-      termination: r.short ? 'short' : 'open',
-      ...(r.short ? { via: { drill: r.drill * um, pad: pad * um, count, pitch: pitch * um } } : {}),
-    } satisfies StubLayoutInput;
-  });
+const validLayout = layoutInputs(fc, { maxWidthUm: 50_000, maxLengthUm: 200_000, maxLeadUm: 100_000, drillUm: [50, 1000], ringUm: [1, 500] });
 
 describe('geometry fuzz (seeded)', () => {
   it('valid dimensions give closed, finite copper; invalid ones a RangeError, never a wrong shape', () => {
