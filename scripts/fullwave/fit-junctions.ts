@@ -27,7 +27,7 @@ for (const record of data.crosses) {
   );
 }
 console.log('\ntee (Hammerstad 1981, not fitted)   rms T     | at f0: d_a mm, d2 mm, n², B mS (own fit / Hammerstad)');
-for (const record of data.tees ?? []) {
+for (const record of data.tees) {
   const points = crossPoints([record]);
   const mid = points[Math.floor(points.length / 2)]!;
   const model = crossElements(mid, undefined);
@@ -40,14 +40,14 @@ for (const record of data.tees ?? []) {
 {
   // A candidate for later: the cross's correction form fitted to the tees. Not used by tunestrip;
   // applying it moves every design's copper (see scripts/fullwave/README.md, second round).
-  const tees = crossPoints(data.tees ?? []);
+  const tees = crossPoints(data.tees);
   if (tees.length > 0) {
     const teeFit = fitCross(tees, { planeA: 1, stubPlaneD2: 0, n2Deficit: 1, susceptance: 0 });
     console.log(`  candidate tee correction (cross form, not used): ${JSON.stringify(Object.fromEntries(Object.entries(teeFit.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(teeFit.rms, 5)}`);
   }
 }
 console.log('\nopen ends (Kirschning–Jansen–Koster 1981, not fitted)');
-for (const o of openEndComparisons(data.open_ends ?? [])) {
+for (const o of openEndComparisons(data.open_ends)) {
   console.log(`${o.name.padEnd(26)} Δl/h measured ${fixed(o.measured / o.height, 4)}  model ${fixed(o.model / o.height, 4)}  (${fixed(100 * (o.model / o.measured - 1), 1)} %)`);
 }
 console.log(`\nvias: crowding coefficient in src ${VIA_CROWDING_FIT}, least squares ${fitViaCrowding(data.vias).toFixed(4)}`);

@@ -14,8 +14,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { abs, add, complex, div, exp, mul, scale, sub, type Complex } from '../../src/math/complex.js';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { crossJunctionFitted, openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign, viaInductanceGoldfarbPucel, type CrossFit } from '../../src/physical/discontinuities/index.js';
-import { MU0 } from '../../src/physical/microstrip/index.js';
+import { crossJunctionFitted, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type CrossFit } from '../../src/physical/discontinuities/index.js';
 import type { LineProperties, Substrate } from '../../src/seams.js';
 
 export interface SubstrateRecord { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number }
@@ -224,7 +223,7 @@ export function viaComparisons(records: readonly ViaRecord[]): ViaComparison[] {
 }
 
 /**
- * The crowding coefficient k of L = L_GP + (μ0/2π)·k·max(w − pad, 0) that minimises the squared
+ * The crowding coefficient k of L = L_GP + k·viaCrowdingBasis(pad, w) that minimises the squared
  * relative error over the extracted vias marked "fit" (linear least squares, closed form).
  */
 export function fitViaCrowding(records: readonly ViaRecord[]): number {
@@ -233,7 +232,7 @@ export function fitViaCrowding(records: readonly ViaRecord[]): number {
   for (const r of records.filter((v) => v.use === 'fit')) {
     const measured = r.inductance_nh_at_f0 * 1e-9;
     const gp = viaInductanceGoldfarbPucel(r.substrate.height_m, r.via.drill_m);
-    const c = (MU0 / (2 * Math.PI)) * Math.max(r.line.width_m - r.via.pad_m, 0);
+    const c = viaCrowdingBasis(r.via.pad_m, r.line.width_m);
     num += (c / measured) * (1 - gp / measured);
     den += (c / measured) ** 2;
   }

@@ -27,6 +27,11 @@ export function viaInductanceGoldfarbPucel(height: number, drill: number): numbe
  */
 export const VIA_CROWDING_FIT = 0.283;
 
+/** The crowding term per unit of k, (μ0/2π)·max(w − pad, 0) (H), for one via under a strip share of `stripWidth`. */
+export function viaCrowdingBasis(pad: number, stripWidth: number): number {
+  return (MU0 / (2 * Math.PI)) * Math.max(stripWidth - pad, 0);
+}
+
 /**
  * Inductance of a stub's grounded end as the physical design uses it: `count` vias of `drill` in
  * `pad` across a strip of `stripWidth`, seen at the via centre-line. Each via takes an equal share
@@ -37,8 +42,7 @@ export function viaInductanceDesign(height: number, drill: number, pad: number, 
   if (!(pad > 0 && stripWidth > 0 && Number.isInteger(count) && count >= 1)) {
     fail('spec.invalid', 'via', `via pad, strip width must be positive and the count a whole number ≥ 1 (pad ${pad}, w ${stripWidth}, n ${count})`);
   }
-  const crowding = (MU0 / (2 * Math.PI)) * VIA_CROWDING_FIT * Math.max(stripWidth / count - pad, 0);
-  return (viaInductanceGoldfarbPucel(height, drill) + crowding) / count;
+  return (viaInductanceGoldfarbPucel(height, drill) + VIA_CROWDING_FIT * viaCrowdingBasis(pad, stripWidth / count)) / count;
 }
 
 /**
