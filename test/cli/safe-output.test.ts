@@ -12,6 +12,7 @@ import { IoError, MARKER, writeOutputsAtomically } from '../../src/cli/io.js';
 import { main } from '../../src/cli/main.js';
 import type { Artifact } from '../../src/seams.js';
 import { captureIo } from '../helpers/captureIo.js';
+import { errorOf } from '../helpers/errors.js';
 
 const root = resolve(import.meta.dirname, '..', '..');
 const version = (JSON.parse(readFileSync(join(root, 'package.json'), 'utf8')) as { version: string }).version;
@@ -39,15 +40,7 @@ const snapshot = (dir: string): Record<string, string> =>
 const visible = (dir: string): string[] => readdirSync(dir).filter((f) => !f.startsWith('.')).sort();
 const temps = (dir: string): string[] => readdirSync(dir).filter((f) => /\.tmp-\d+$/.test(f));
 
-function ioErrorOf(run: () => unknown): IoError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof IoError) return e;
-    throw e;
-  }
-  throw new Error('expected an IoError');
-}
+const ioErrorOf = (run: () => unknown): IoError => errorOf(run, IoError);
 
 describe('writeOutputsAtomically', () => {
   it('writes every file and a marker listing them, and leaves no temporary file', () => {
