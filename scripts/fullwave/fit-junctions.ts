@@ -1,54 +1,53 @@
-// Prints the fits of the cross-junction and via models to scripts/fullwave/junctions.json: per cross
-// case the even-mode S error of the bare T model, of the coefficients in src/, and of a fresh
-// least-squares fit; each case's own elements; the via inductance ratios. Diagnostic only.
+// Prints the fits of the junction, open-end and via models to scripts/fullwave/junctions.json: per
+// cross and tee case the S error of the bare T model, of the coefficients in src/, and of a fresh
+// least-squares fit; each case's own elements; the open-end and via ratios. Diagnostic only.
 //
 //   npx tsx scripts/fullwave/fit-junctions.ts [junctions.json]
-import { CROSS_FIT, VIA_CROWDING_FIT } from '../../src/physical/discontinuities/index.js';
-import { openEndComparisons, caseElements, crossElements, crossPoints, fitCross, fitViaCrowding, readJunctions, rmsError, viaComparisons } from './junction-fit.js';
+import { CROSS_FIT, OPEN_END_FULLWAVE_SCALE, TEE_FIT, VIA_CROWDING_FIT } from '../../src/physical/discontinuities/index.js';
+import { fitOpenEndScale, fittedTees, openEndComparisons, caseElements, junctionElements, junctionPoints, fitJunction, fitViaCrowding, readJunctions, rmsError, viaComparisons } from './junction-fit.js';
 
 const data = readJunctions(process.argv[2]);
 const fixed = (v: number, d: number): string => v.toFixed(d);
 
-const all = crossPoints(data.crosses);
-const fresh = fitCross(all, CROSS_FIT);
+const all = junctionPoints(data.crosses);
+const fresh = fitJunction(all, CROSS_FIT);
 console.log(`cross fit over ${data.crosses.length} cases, ${all.length} points`);
-console.log(`  coefficients in src: ${JSON.stringify(CROSS_FIT)}  rms ${fixed(rmsError(all, (p) => crossElements(p, CROSS_FIT)), 5)}`);
+console.log(`  coefficients in src: ${JSON.stringify(CROSS_FIT)}  rms ${fixed(rmsError(all, (p) => junctionElements(p, CROSS_FIT)), 5)}`);
 console.log(`  least squares:       ${JSON.stringify(Object.fromEntries(Object.entries(fresh.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(fresh.rms, 5)}`);
-console.log(`  bare T model:        rms ${fixed(rmsError(all, (p) => crossElements(p, undefined)), 5)}`);
+console.log(`  bare T model:        rms ${fixed(rmsError(all, (p) => junctionElements(p, undefined)), 5)}`);
 console.log('\ncase                              rms T     rms src   rms fit   | at f0: d_a mm, d2 mm, n², B mS (own fit / src model)');
 for (const record of data.crosses) {
-  const points = crossPoints([record]);
+  const points = junctionPoints([record]);
   const mid = points[Math.floor(points.length / 2)]!;
-  const own = caseElements(mid, crossElements(mid, CROSS_FIT));
-  const src = crossElements(mid, CROSS_FIT);
+  const own = caseElements(mid, junctionElements(mid, CROSS_FIT));
+  const src = junctionElements(mid, CROSS_FIT);
   console.log(
-    `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => crossElements(p, undefined)), 5).padEnd(10)}${fixed(rmsError(points, (p) => crossElements(p, CROSS_FIT)), 5).padEnd(10)}${fixed(rmsError(points, (p) => crossElements(p, fresh.fit)), 5).padEnd(10)}| ` +
+    `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => junctionElements(p, undefined)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, CROSS_FIT)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, fresh.fit)), 5).padEnd(10)}| ` +
       `${fixed(own.da * 1e3, 3)}/${fixed(src.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(src.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(src.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(src.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
   );
 }
-console.log('\ntee (Hammerstad 1981, not fitted)   rms T     | at f0: d_a mm, d2 mm, n², B mS (own fit / Hammerstad)');
+const tees = junctionPoints(fittedTees(data));
+const teeFresh = fitJunction(tees, TEE_FIT);
+console.log(`\ntee fit over ${fittedTees(data).length} cases, ${tees.length} points (held out: ${data.tees.filter((t) => t.use === 'check').map((t) => t.name).join(', ') || 'none'})`);
+console.log(`  coefficients in src: ${JSON.stringify(TEE_FIT)}  rms ${fixed(rmsError(tees, (p) => junctionElements(p, TEE_FIT)), 5)}`);
+console.log(`  least squares:       ${JSON.stringify(Object.fromEntries(Object.entries(teeFresh.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(teeFresh.rms, 5)}`);
+console.log(`  bare T model:        rms ${fixed(rmsError(tees, (p) => junctionElements(p, undefined)), 5)}`);
+console.log('\ncase                              rms T     rms src   | at f0: d_a mm, d2 mm, n², B mS (own fit / src model / Hammerstad)');
 for (const record of data.tees) {
-  const points = crossPoints([record]);
+  const points = junctionPoints([record]);
   const mid = points[Math.floor(points.length / 2)]!;
-  const model = crossElements(mid, undefined);
-  const own = caseElements(mid, model);
+  const bare = junctionElements(mid, undefined);
+  const src = junctionElements(mid, TEE_FIT);
+  const own = caseElements(mid, src);
+  const three = (k: 'da' | 'd2' | 'n2' | 'susceptance', unit: number, d: number): string => [own, src, bare].map((e) => fixed(e[k] * unit, d)).join('/');
   console.log(
-    `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => crossElements(p, undefined)), 5).padEnd(10)}| ` +
-      `${fixed(own.da * 1e3, 3)}/${fixed(model.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(model.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(model.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(model.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
+    `${(record.name + (record.use === 'check' ? ' (held out)' : '')).padEnd(34)}${fixed(rmsError(points, (p) => junctionElements(p, undefined)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, TEE_FIT)), 5).padEnd(10)}| ` +
+      `${three('da', 1e3, 3)}  ${three('d2', 1e3, 3)}  ${three('n2', 1, 4)}  ${three('susceptance', 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
   );
 }
-{
-  // A candidate for later: the cross's correction form fitted to the tees. Not used by tunestrip;
-  // applying it moves every design's copper (see scripts/fullwave/README.md, second round).
-  const tees = crossPoints(data.tees);
-  if (tees.length > 0) {
-    const teeFit = fitCross(tees, { planeA: 1, stubPlaneD2: 0, n2Deficit: 1, susceptance: 0 });
-    console.log(`  candidate tee correction (cross form, not used): ${JSON.stringify(Object.fromEntries(Object.entries(teeFit.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(teeFit.rms, 5)}`);
-  }
-}
-console.log('\nopen ends (Kirschning–Jansen–Koster 1981, not fitted)');
+console.log(`\nopen ends: scale on Kirschning–Jansen–Koster 1981 in src ${OPEN_END_FULLWAVE_SCALE}, least squares ${fitOpenEndScale(data.open_ends).toFixed(4)}`);
 for (const o of openEndComparisons(data.open_ends)) {
-  console.log(`${o.name.padEnd(26)} Δl/h measured ${fixed(o.measured / o.height, 4)}  model ${fixed(o.model / o.height, 4)}  (${fixed(100 * (o.model / o.measured - 1), 1)} %)`);
+  console.log(`${o.name.padEnd(26)} Δl/h measured ${fixed(o.measured / o.height, 4)}  KJK ${fixed(o.kjk / o.height, 4)} (${fixed(100 * (o.kjk / o.measured - 1), 1)} %)  design model ${fixed(o.model / o.height, 4)} (${fixed(100 * (o.model / o.measured - 1), 1)} %)`);
 }
 console.log(`\nvias: crowding coefficient in src ${VIA_CROWDING_FIT}, least squares ${fitViaCrowding(data.vias).toFixed(4)}`);
 for (const v of viaComparisons(data.vias)) {

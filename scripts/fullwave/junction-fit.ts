@@ -1,4 +1,4 @@
-// The fits of tunestrip's cross-junction and via models to this project's own full-wave extractions
+// The fits of tunestrip's junction, open-end and via models to this project's own full-wave extractions
 // (scripts/fullwave/junctions.json, made by extract_junctions.py with openEMS). Used by
 // fit-junctions.ts (prints the fit) and by test/reference/fullwave-junctions.test.ts (checks that the
 // coefficients in src/ are the ones these data give). Not part of tunestrip.
@@ -14,7 +14,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { abs, add, complex, div, exp, mul, scale, sub, type Complex } from '../../src/math/complex.js';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { crossJunctionFitted, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type CrossFit } from '../../src/physical/discontinuities/index.js';
+import { fittedJunction, openEndExtensionDesign, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type JunctionFit } from '../../src/physical/discontinuities/index.js';
 import type { LineProperties, Substrate } from '../../src/seams.js';
 
 export interface SubstrateRecord { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number }
@@ -42,8 +42,16 @@ export interface ViaRecord {
   readonly inductance_nh: readonly number[];
   readonly inductance_nh_at_f0: number;
 }
-/** A T-junction extraction has the same fields as a cross's, with a 3 × 3 S (ports 1, 2 main, 3 stub). */
-export type TeeRecord = CrossRecord;
+/**
+ * A T-junction extraction has the same fields as a cross's, with a 3 × 3 S (ports 1, 2 main, 3 stub),
+ * and says whether the fit uses it ("fit") or it was run after the fit and kept out ("check").
+ */
+export interface TeeRecord extends CrossRecord {
+  readonly use: 'fit' | 'check';
+}
+
+/** The tees the fit uses. */
+export const fittedTees = (data: JunctionData): readonly TeeRecord[] => data.tees.filter((t) => t.use === 'fit');
 export interface OpenEndRecord {
   readonly name: string;
   readonly substrate: SubstrateRecord;
@@ -91,7 +99,7 @@ export function measuredS(record: CrossRecord, k: number): Matrix {
 }
 
 /** Line properties of one cross or tee case at one frequency, computed once per fit. */
-export interface CrossPoint {
+export interface JunctionPoint {
   readonly arms: 3 | 4;
   readonly substrate: Substrate;
   readonly main: LineProperties;
@@ -99,7 +107,7 @@ export interface CrossPoint {
   readonly measured: Matrix;
 }
 
-export function crossPoints(records: readonly CrossRecord[]): CrossPoint[] {
+export function junctionPoints(records: readonly CrossRecord[]): JunctionPoint[] {
   return records.flatMap((r) => {
     const substrate = substrateOf(r.substrate);
     return r.freq_hz.map((f, k) => ({
@@ -120,7 +128,7 @@ export interface JunctionElements { readonly da: number; readonly d2: number; re
  * S_node = 2·√(G_i·G_j)/(ΣG + jB) − δ_ij; each arm then adds its line from the centre-line to its
  * reference plane, of length −d_a (main) or −d2 (stub).
  */
-export function modelS(point: CrossPoint, j: JunctionElements): Matrix {
+export function modelS(point: JunctionPoint, j: JunctionElements): Matrix {
   const { main, stub } = point;
   const g = [1 / (j.n2 * main.z0), 1 / (j.n2 * main.z0), 1 / stub.z0, 1 / stub.z0].slice(0, point.arms);
   const total = complex(g.reduce((a, b) => a + b, 0), j.susceptance);
@@ -134,15 +142,15 @@ export function modelS(point: CrossPoint, j: JunctionElements): Matrix {
   return point.arms === 4 ? evenMode(s) : s;
 }
 
-export function crossElements(point: CrossPoint, fit: CrossFit | undefined): JunctionElements {
+export function junctionElements(point: JunctionPoint, fit: JunctionFit | undefined): JunctionElements {
   const f = point.main.frequency;
   const tee = tJunctionHammerstad(point.main, point.main, point.stub, point.substrate, f);
-  const j = fit ? crossJunctionFitted(tee, point.stub, point.substrate, fit) : tee;
+  const j = fit ? fittedJunction(tee, point.stub, point.substrate, fit) : tee;
   return { da: j.da, d2: j.d2, n2: j.n2a, susceptance: j.susceptance };
 }
 
 /** Root-mean-square difference of the (even-mode) S elements over the points (9 per point). */
-export function rmsError(points: readonly CrossPoint[], elementsOf: (p: CrossPoint) => JunctionElements): number {
+export function rmsError(points: readonly JunctionPoint[], elementsOf: (p: JunctionPoint) => JunctionElements): number {
   let sum = 0;
   for (const p of points) {
     const model = modelS(p, elementsOf(p));
@@ -151,18 +159,18 @@ export function rmsError(points: readonly CrossPoint[], elementsOf: (p: CrossPoi
   return Math.sqrt(sum / (9 * points.length));
 }
 
-const fitOf = (x: readonly number[]): CrossFit => ({ planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]! });
+const fitOf = (x: readonly number[]): JunctionFit => ({ planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]! });
 
 /** Least-squares coefficients of the cross correction over all points (Nelder–Mead from `start`). */
-export function fitCross(points: readonly CrossPoint[], start: CrossFit): { fit: CrossFit; rms: number } {
+export function fitJunction(points: readonly JunctionPoint[], start: JunctionFit): { fit: JunctionFit; rms: number } {
   const x0 = [start.planeA, start.stubPlaneD2, start.n2Deficit, start.susceptance];
-  const cost = (x: readonly number[]): number => rmsError(points, (p) => crossElements(p, fitOf(x)));
+  const cost = (x: readonly number[]): number => rmsError(points, (p) => junctionElements(p, fitOf(x)));
   const best = nelderMead(cost, x0, x0.map((v) => 0.2 * Math.abs(v) + 0.05));
   return { fit: fitOf(best.x), rms: best.value };
 }
 
 /** One cross case's own elements (d_a, d2, n², B) at one frequency, fitted to its S alone. */
-export function caseElements(point: CrossPoint, start: JunctionElements): JunctionElements & { rms: number } {
+export function caseElements(point: JunctionPoint, start: JunctionElements): JunctionElements & { rms: number } {
   const toElements = (x: readonly number[]): JunctionElements => ({ da: x[0]! * 1e-3, d2: x[1]! * 1e-3, n2: x[2]!, susceptance: x[3]! * 1e-3 });
   const x0 = [start.da * 1e3, start.d2 * 1e3, start.n2, start.susceptance * 1e3];
   const best = nelderMead((x) => rmsError([point], () => toElements(x)), x0, [0.1, 0.3, 0.02, 0.5]);
@@ -239,11 +247,17 @@ export function fitViaCrowding(records: readonly ViaRecord[]): number {
   return num / den;
 }
 
+/** The scale s on KJK's Δl minimising Σ(s·model/measured − 1)² over the open ends (closed form). */
+export function fitOpenEndScale(records: readonly OpenEndRecord[]): number {
+  const ratios = openEndComparisons(records).map((o) => o.kjk / o.measured);
+  return ratios.reduce((a, r) => a + r, 0) / ratios.reduce((a, r) => a + r * r, 0);
+}
+
 /** Each extracted open-end extension at f0 beside Kirschning–Jansen–Koster's for the same line. */
-export function openEndComparisons(records: readonly OpenEndRecord[]): { name: string; height: number; measured: number; model: number }[] {
+export function openEndComparisons(records: readonly OpenEndRecord[]): { name: string; height: number; measured: number; kjk: number; model: number }[] {
   return records.map((r) => {
     const substrate = substrateOf(r.substrate);
     const line = analyseMicrostrip(r.line.width_m, substrate, r.frequency_hz);
-    return { name: r.name, height: r.substrate.height_m, measured: r.extension_m_at_f0, model: openEndExtensionKJK(line, substrate) };
+    return { name: r.name, height: r.substrate.height_m, measured: r.extension_m_at_f0, kjk: openEndExtensionKJK(line, substrate), model: openEndExtensionDesign(line, substrate) };
   });
 }

@@ -6,7 +6,7 @@ import { add, complex, div, inv, scale, type Complex } from '../math/complex.js'
 import { cascade, inputImpedanceOf, lineAbcd, shuntAdmittanceAbcd, transformerAbcd, type Abcd } from '../math/network.js';
 import type { MatchCopper, Substrate } from '../seams.js';
 import { analyseMicrostrip, propagationConstant } from '../physical/microstrip/index.js';
-import { crossJunctionFitted, openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
+import { CROSS_FIT, fittedJunction, openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
 import { inputImpedance, openStubAdmittance, shortStubAdmittance } from '../math/lines.js';
 
 /** Which discontinuity models take part; all on for the physical design, all off gives plain lines. */
@@ -30,7 +30,7 @@ export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency:
   const stub = analyseMicrostrip(copper.stubWidth, substrate, frequency);
   const tee = tJunctionHammerstad(main, main, stub, substrate, frequency);
   // Balanced stubs meet the line in a cross, which is not two tees.
-  const j = copper.stubCount === 2 ? crossJunctionFitted(tee, stub, substrate) : tee;
+  const j = copper.stubCount === 2 ? fittedJunction(tee, stub, substrate, CROSS_FIT) : tee;
   return { da: j.da, db: j.db, d2: j.d2, n2a: j.n2a, n2b: j.n2b, susceptance: j.susceptance };
 }
 
