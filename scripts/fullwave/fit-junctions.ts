@@ -3,18 +3,23 @@
 // least-squares fit; each case's own elements; the open-end and via ratios. Diagnostic only.
 //
 //   npx tsx scripts/fullwave/fit-junctions.ts [junctions.json]
-import { CROSS_FIT, OPEN_END_FULLWAVE_SCALE, TEE_FIT, VIA_CROWDING_FIT } from '../../src/physical/discontinuities/index.js';
-import { fitOpenEndScale, fittedTees, openEndComparisons, caseElements, junctionElements, junctionPoints, fitJunction, fitViaCrowding, readJunctions, rmsError, viaComparisons } from './junction-fit.js';
+import { CROSS_FIT, OPEN_END_FULLWAVE_SCALE, TEE_FIT, VIA_CROWDING_FIT, type JunctionFit } from '../../src/physical/discontinuities/index.js';
+import { fitOpenEndScale, fittedTees, openEndComparisons, caseElements, junctionElements, junctionPoints, fitJunction, fitViaCrowding, readJunctions, rmsError, viaComparisons, type JunctionPoint } from './junction-fit.js';
 
 const data = readJunctions(process.argv[2]);
 const fixed = (v: number, d: number): string => v.toFixed(d);
 
-const all = junctionPoints(data.crosses);
-const fresh = fitJunction(all, CROSS_FIT);
-console.log(`cross fit over ${data.crosses.length} cases, ${all.length} points`);
-console.log(`  coefficients in src: ${JSON.stringify(CROSS_FIT)}  rms ${fixed(rmsError(all, (p) => junctionElements(p, CROSS_FIT)), 5)}`);
-console.log(`  least squares:       ${JSON.stringify(Object.fromEntries(Object.entries(fresh.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(fresh.rms, 5)}`);
-console.log(`  bare T model:        rms ${fixed(rmsError(all, (p) => junctionElements(p, undefined)), 5)}`);
+/** Prints a fit's heading: the coefficients in src, a fresh least-squares fit, the bare T; returns the fresh fit. */
+function fitSummary(heading: string, points: readonly JunctionPoint[], inSrc: JunctionFit): JunctionFit {
+  const fresh = fitJunction(points, inSrc);
+  console.log(`${heading}, ${points.length} points`);
+  console.log(`  coefficients in src: ${JSON.stringify(inSrc)}  rms ${fixed(rmsError(points, (p) => junctionElements(p, inSrc)), 5)}`);
+  console.log(`  least squares:       ${JSON.stringify(Object.fromEntries(Object.entries(fresh.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(fresh.rms, 5)}`);
+  console.log(`  bare T model:        rms ${fixed(rmsError(points, (p) => junctionElements(p, undefined)), 5)}`);
+  return fresh.fit;
+}
+
+const freshCross = fitSummary(`cross fit over ${data.crosses.length} cases`, junctionPoints(data.crosses), CROSS_FIT);
 console.log('\ncase                              rms T     rms src   rms fit   | at f0: d_a mm, d2 mm, n², B mS (own fit / src model)');
 for (const record of data.crosses) {
   const points = junctionPoints([record]);
@@ -22,16 +27,12 @@ for (const record of data.crosses) {
   const own = caseElements(mid, junctionElements(mid, CROSS_FIT));
   const src = junctionElements(mid, CROSS_FIT);
   console.log(
-    `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => junctionElements(p, undefined)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, CROSS_FIT)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, fresh.fit)), 5).padEnd(10)}| ` +
+    `${record.name.padEnd(34)}${fixed(rmsError(points, (p) => junctionElements(p, undefined)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, CROSS_FIT)), 5).padEnd(10)}${fixed(rmsError(points, (p) => junctionElements(p, freshCross)), 5).padEnd(10)}| ` +
       `${fixed(own.da * 1e3, 3)}/${fixed(src.da * 1e3, 3)}  ${fixed(own.d2 * 1e3, 3)}/${fixed(src.d2 * 1e3, 3)}  ${fixed(own.n2, 4)}/${fixed(src.n2, 4)}  ${fixed(own.susceptance * 1e3, 3)}/${fixed(src.susceptance * 1e3, 3)}  (own rms ${fixed(own.rms, 5)})`,
   );
 }
-const tees = junctionPoints(fittedTees(data));
-const teeFresh = fitJunction(tees, TEE_FIT);
-console.log(`\ntee fit over ${fittedTees(data).length} cases, ${tees.length} points (held out: ${data.tees.filter((t) => t.use === 'check').map((t) => t.name).join(', ') || 'none'})`);
-console.log(`  coefficients in src: ${JSON.stringify(TEE_FIT)}  rms ${fixed(rmsError(tees, (p) => junctionElements(p, TEE_FIT)), 5)}`);
-console.log(`  least squares:       ${JSON.stringify(Object.fromEntries(Object.entries(teeFresh.fit).map(([k, v]) => [k, Number(v.toFixed(4))])))}  rms ${fixed(teeFresh.rms, 5)}`);
-console.log(`  bare T model:        rms ${fixed(rmsError(tees, (p) => junctionElements(p, undefined)), 5)}`);
+const heldOut = data.tees.filter((t) => t.use === 'check').map((t) => t.name).join(', ') || 'none';
+fitSummary(`\ntee fit over ${fittedTees(data).length} cases (held out: ${heldOut})`, junctionPoints(fittedTees(data)), TEE_FIT);
 console.log('\ncase                              rms T     rms src   | at f0: d_a mm, d2 mm, n², B mS (own fit / src model / Hammerstad)');
 for (const record of data.tees) {
   const points = junctionPoints([record]);
