@@ -306,24 +306,31 @@ def minimum_of(freq, mag_db):
     return float(freq[k]), float(mag_db[k]), k
 
 
-def model_minimum(folder):
-    """The minimum of tunestrip's own predicted response (response.s1p), for comparison."""
+def model_minimum(folder, target):
+    """The minimum of tunestrip's own predicted response (response.s1p), for comparison.
+
+    The Touchstone file is referenced to its real R; for a complex target the mismatch that matters
+    is the power-wave reflection against the target, so Zin is recovered and compared with it.
+    """
     fs, gs = [], []
-    scale = 1.0
+    scale, r_ref = 1.0, 50.0
     with open(os.path.join(folder, 'response.s1p'), encoding='utf8') as f:
         for line in f:
             s = line.strip()
             if not s or s.startswith('!'):
                 continue
             if s.startswith('#'):
-                unit = s.split()[1].upper()
-                scale = {'HZ': 1, 'KHZ': 1e3, 'MHZ': 1e6, 'GHZ': 1e9}[unit]
-                if 'RI' not in s.upper().split():
+                words = s.upper().split()
+                scale = {'HZ': 1, 'KHZ': 1e3, 'MHZ': 1e6, 'GHZ': 1e9}[words[1]]
+                if 'RI' not in words:
                     return None
+                r_ref = float(words[words.index('R') + 1])
                 continue
             a = s.split()
             fs.append(float(a[0]) * scale)
-            gs.append(abs(complex(float(a[1]), float(a[2]))))
+            g = complex(float(a[1]), float(a[2]))
+            zin = r_ref * (1 + g) / (1 - g)
+            gs.append(abs((zin - target) / (zin + np.conj(target))))
     k = int(np.argmin(gs))
     return fs[k]
 
@@ -362,7 +369,7 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False):
         zl = run_src[role]['zl'][k0] if role == 'source' else run_load[role]['zl'][k0]
         port_line[role] = {'eps_eff': float((np.real(beta) / k_f0) ** 2), 'z0_ohm': float(np.real(zl))}
     lines = {l['role']: l for l in design['lines']}
-    model_f = model_minimum(folder)
+    model_f = model_minimum(folder, target)
     nx, ny, nz = (len(plan['mesh'][a]) for a in 'xyz')
     result = {
         'name': name,

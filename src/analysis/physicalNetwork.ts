@@ -6,7 +6,7 @@ import { add, complex, div, inv, scale, type Complex } from '../math/complex.js'
 import { cascade, inputImpedanceOf, lineAbcd, shuntAdmittanceAbcd, transformerAbcd, type Abcd } from '../math/network.js';
 import type { MatchCopper, Substrate } from '../seams.js';
 import { analyseMicrostrip, propagationConstant } from '../physical/microstrip/index.js';
-import { CROSS_FIT, fittedJunction, openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
+import { CROSS_FIT, TEE_FIT, fittedJunction, openEndExtensionDesign, tJunctionHammerstad, viaInductanceDesign, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
 import { inputImpedance, openStubAdmittance, shortStubAdmittance } from '../math/lines.js';
 
 /** Which discontinuity models take part; all on for the physical design, all off gives plain lines. */
@@ -29,8 +29,8 @@ export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency:
   const main = analyseMicrostrip(copper.seriesWidth, substrate, frequency);
   const stub = analyseMicrostrip(copper.stubWidth, substrate, frequency);
   const tee = tJunctionHammerstad(main, main, stub, substrate, frequency);
-  // Balanced stubs meet the line in a cross, which is not two tees.
-  const j = copper.stubCount === 2 ? fittedJunction(tee, stub, substrate, CROSS_FIT) : tee;
+  // Balanced stubs meet the line in a cross, which is not two tees; each has its own fitted correction.
+  const j = fittedJunction(tee, stub, substrate, copper.stubCount === 2 ? CROSS_FIT : TEE_FIT);
   return { da: j.da, db: j.db, d2: j.d2, n2a: j.n2a, n2b: j.n2b, susceptance: j.susceptance };
 }
 
@@ -85,7 +85,7 @@ function stubAdmittance(
 ): Complex {
   if (copper.termination === 'open') {
     // The fringing field of the open end acts as a line extension Δl (Kirschning–Jansen–Koster 1981).
-    const extension = models.openEnd ? openEndExtensionKJK(line, substrate) : 0;
+    const extension = models.openEnd ? openEndExtensionDesign(line, substrate) : 0;
     return openStubAdmittance(z0, gamma, length + extension);
   }
   if (!(models.via && copper.vias)) return shortStubAdmittance(z0, gamma, length);

@@ -15,7 +15,7 @@ import type {
   ViaSpec,
 } from '../seams.js';
 import { synthesizeMicrostrip } from './microstrip/index.js';
-import { openEndExtensionKJK, tJunctionHammerstad, viaInductanceDesign } from './discontinuities/index.js';
+import { openEndExtensionDesign, tJunctionHammerstad, viaInductanceDesign } from './discontinuities/index.js';
 import { inputImpedance } from '../math/lines.js';
 import { newton2 } from '../math/newton.js';
 import { MIN_DRAWN_WIDTH } from '../geometry/layout.js';
@@ -24,8 +24,8 @@ import { mm, trimmed } from '../format.js';
 
 /** Sources named in every correction record. */
 export const MODEL_NAMES = {
-  junction: 'T-junction reference planes (Hammerstad 1981)',
-  openEnd: 'open-end extension (Kirschning-Jansen-Koster 1981)',
+  junction: 'T-junction reference planes (Hammerstad 1981, corrected to full-wave runs)',
+  openEnd: 'open-end extension (Kirschning-Jansen-Koster 1981, scaled to full-wave runs)',
   via: 'via inductance (Goldfarb-Pucel 1991 plus strip-to-pad crowding fitted to full-wave runs)',
   halfWave: 'half wavelength added to keep the copper buildable',
   refine: 'solve on the physical network (junction ratio and susceptance, dispersion, loss)',
@@ -41,7 +41,7 @@ export const VIA_JUNCTION_CLEARANCE_WL = 0.15;
 
 /**
  * Seven of the eight crosses the cross model was fitted to have εr ≤ 4.4 (scripts/fullwave/
- * junctions.json); a balanced design on εr 10.2 landed 2.0 % low in a full-wave check. Balanced
+ * junctions.json); a balanced design on εr 10.2 landed 1.7 % low in a full-wave check. Balanced
  * designs above this εr get a note saying so.
  */
 export const BALANCED_CHECKED_ER = 4.5;
@@ -226,7 +226,7 @@ function realizeBranch(
   const stubCorrections: Correction[] = [{ model: MODEL_NAMES.junction, delta: j.d2 - series.width / 2 }];
   let stubLength = solution.stubWl * stub.wavelength + j.d2 - series.width / 2;
   if (solution.termination === 'open') {
-    const extension = openEndExtensionKJK(stub, spec.substrate);
+    const extension = openEndExtensionDesign(stub, spec.substrate);
     stubLength -= extension;
     stubCorrections.push({ model: MODEL_NAMES.openEnd, delta: -extension });
   } else if (via) {
@@ -250,7 +250,7 @@ function realizeBranch(
     notes.push(diagnostic('design.note', 'stub', `short stub made half a wavelength longer to keep its via clear of the junction`));
   }
   if (stubCount === 2 && spec.substrate.er > BALANCED_CHECKED_ER) {
-    notes.push(diagnostic('design.note', 'style', `the cross model of balanced stubs rests mostly on εr ≤ 4.4; a full-wave check on εr 10.2 landed 2 % low: check this design by full-wave simulation`));
+    notes.push(diagnostic('design.note', 'style', `the cross model of balanced stubs rests mostly on εr ≤ 4.4; a full-wave check on εr 10.2 landed 1.7 % low: check this design by full-wave simulation`));
   }
 
   const vias = solution.termination === 'short' && via ? { drill: via.drill, pad: via.pad, count: via.count } : undefined;

@@ -16,9 +16,7 @@
 // TEE_FIT, for a single stub: eleven T-junctions (a twelfth held out), εr 3.0–10.2, h 0.508–1.6 mm,
 // 50 Ω main lines with 30–80 Ω stubs. Hammerstad's planes hold (planeA near 1, stubPlaneD2 near 0);
 // his transformer deficit is about 2.5 times too small and a wide stub's junction capacitance is
-// missing. NOT YET USED by the design (single stubs still use Hammerstad alone): applying it moves
-// the copper of every single-stub design, and the full-wave runs in results.json must be repeated
-// first (scripts/fullwave/README.md, third round).
+// missing.
 //
 // Check designs outside these ranges by full-wave simulation.
 import type { LineProperties, Substrate } from '../../seams.js';

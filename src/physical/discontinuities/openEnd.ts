@@ -28,8 +28,7 @@ export function openEndExtensionKJK(line: LineProperties, substrate: Substrate):
 export const OPEN_END_FULLWAVE_SCALE = 1.0386;
 
 /**
- * KJK 1981 scaled to the full-wave extractions. Not yet used by the design (it uses KJK alone):
- * applying it moves every open stub's copper, so the full-wave runs must be repeated first.
+ * KJK 1981 scaled to the full-wave extractions: the open-end extension the design uses.
  */
 export function openEndExtensionDesign(line: LineProperties, substrate: Substrate): number {
   return OPEN_END_FULLWAVE_SCALE * openEndExtensionKJK(line, substrate);
