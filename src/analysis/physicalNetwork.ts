@@ -84,7 +84,8 @@ function stubAdmittance(
   models: NetworkModels,
 ): Complex {
   if (copper.termination === 'open') {
-    // The fringing field of the open end acts as a line extension Δl (Kirschning–Jansen–Koster 1981).
+    // The fringing field of the open end acts as a line extension Δl (Kirschning–Jansen–Koster 1981,
+    // scaled to this project's full-wave extractions of open ends).
     const extension = models.openEnd ? openEndExtensionDesign(line, substrate) : 0;
     return openStubAdmittance(z0, gamma, length + extension);
   }
