@@ -291,9 +291,14 @@ def impedance_matrix(run_src, run_load):
     return z
 
 
+def reflection_against(zin, target):
+    """Power-wave reflection of Zin against a (possibly complex) target: (Zin − Zt)/(Zin + Zt*)."""
+    return (zin - target) / (zin + np.conj(target))
+
+
 def terminated_reflection(z, load, target):
     zin = z[:, 0, 0] - z[:, 0, 1] * z[:, 1, 0] / (z[:, 1, 1] + load)
-    return (zin - target) / (zin + np.conj(target))
+    return reflection_against(zin, target)
 
 
 def minimum_of(freq, mag_db):
@@ -324,13 +329,14 @@ def model_minimum(folder, target):
                 scale = {'HZ': 1, 'KHZ': 1e3, 'MHZ': 1e6, 'GHZ': 1e9}[words[1]]
                 if 'RI' not in words:
                     return None
-                r_ref = float(words[words.index('R') + 1])
+                if 'R' in words:  # Touchstone's default reference is 50 Ω
+                    r_ref = float(words[words.index('R') + 1])
                 continue
             a = s.split()
             fs.append(float(a[0]) * scale)
             g = complex(float(a[1]), float(a[2]))
             zin = r_ref * (1 + g) / (1 - g)
-            gs.append(abs((zin - target) / (zin + np.conj(target))))
+            gs.append(abs(reflection_against(zin, target)))
     k = int(np.argmin(gs))
     return fs[k]
 
