@@ -7,24 +7,11 @@
 // term stays as it is), so a full-wave offset can be read as an equivalent via inductance. Diagnostic only (not part of tunestrip, not run by npm test).
 //
 //   npx tsx scripts/fullwave/model-sensitivity.ts OUT_DIR [OUT_DIR ...]
-import { readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import { complex, abs } from '../../src/math/complex.js';
 import { ALL_MODELS, mismatch, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
 import type { MatchCopper, Substrate } from '../../src/seams.js';
+import { copperOfRecord, readDesignRecord, substrateOfRecord } from './design-record.js';
 import { viaInductanceGoldfarbPucel } from '../../src/physical/discontinuities/index.js';
-
-interface Line { readonly role: string; readonly width_m: number; readonly length_m: number }
-interface DesignRecord {
-  readonly name: string;
-  readonly frequency_hz: number;
-  readonly load_ohm: readonly [number, number];
-  readonly target_ohm: readonly [number, number];
-  readonly substrate: { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number; readonly roughness_m: number; readonly conductivity_s_per_m: number };
-  readonly solution: { readonly termination: 'open' | 'short'; readonly style: string };
-  readonly lines: readonly Line[];
-  readonly vias: readonly { readonly drill_m: number; readonly pad_m: number }[];
-}
 
 const variants: Readonly<Record<string, NetworkModels>> = {
   all: ALL_MODELS,
@@ -34,26 +21,9 @@ const variants: Readonly<Record<string, NetworkModels>> = {
 };
 
 for (const folder of process.argv.slice(2)) {
-  const d = JSON.parse(readFileSync(join(folder, 'design.json'), 'utf8')) as DesignRecord;
-  const line = (role: string): Line => d.lines.find((l) => l.role === role)!;
-  const substrate: Substrate = {
-    er: d.substrate.er,
-    height: d.substrate.height_m,
-    copper: d.substrate.copper_m,
-    tanDelta: d.substrate.tan_delta,
-    roughness: d.substrate.roughness_m,
-    conductivity: d.substrate.conductivity_s_per_m,
-  };
-  const copper: MatchCopper = {
-    seriesWidth: line('series').width_m,
-    stubWidth: line('stub').width_m,
-    seriesLength: line('series').length_m,
-    stubLength: line('stub').length_m,
-    leadLength: line('lead').length_m,
-    termination: d.solution.termination,
-    stubCount: d.solution.style === 'balanced' ? 2 : 1,
-    ...(d.solution.termination === 'short' && d.vias[0] ? { vias: { drill: d.vias[0].drill_m, pad: d.vias[0].pad_m, count: d.vias.length / (d.solution.style === 'balanced' ? 2 : 1) } } : {}),
-  };
+  const d = readDesignRecord(folder);
+  const substrate: Substrate = substrateOfRecord(d);
+  const copper: MatchCopper = copperOfRecord(d);
   const load = complex(d.load_ohm[0], d.load_ohm[1]);
   const target = complex(d.target_ohm[0], d.target_ohm[1]);
   const f0 = d.frequency_hz;

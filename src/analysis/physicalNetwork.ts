@@ -6,7 +6,7 @@ import { add, complex, div, inv, scale, type Complex } from '../math/complex.js'
 import { cascade, inputImpedanceOf, lineAbcd, shuntAdmittanceAbcd, transformerAbcd, type Abcd } from '../math/network.js';
 import type { MatchCopper, Substrate } from '../seams.js';
 import { analyseMicrostrip, propagationConstant } from '../physical/microstrip/index.js';
-import { CROSS_FIT, TEE_FIT, fittedJunction, openEndExtensionDesign, tJunctionHammerstad, viaInductanceDesign, viaResistance, type TJunction } from '../physical/discontinuities/index.js';
+import { CROSS_FIT, TEE_FIT, fittedJunction, openEndExtensionDesign, tJunctionHammerstad, viaInductanceDesign, viaResistance, type JunctionFit, type TJunction } from '../physical/discontinuities/index.js';
 import { inputImpedance, openStubAdmittance, shortStubAdmittance } from '../math/lines.js';
 
 /** Which discontinuity models take part; all on for the physical design, all off gives plain lines. */
@@ -15,6 +15,8 @@ export interface NetworkModels {
   readonly openEnd: boolean;
   readonly via: boolean;
   readonly loss: boolean;
+  /** A junction correction to weigh instead of TEE_FIT / CROSS_FIT (diagnostics; the design never sets it). */
+  readonly junctionFit?: JunctionFit;
 }
 
 export const ALL_MODELS: NetworkModels = { junction: true, openEnd: true, via: true, loss: true };
@@ -25,12 +27,12 @@ const VIA_PLATING = 25e-6;
 /** The junction's reference planes, transformer ratios and susceptance, as the network uses them. */
 export type JunctionView = Omit<TJunction, 'warnings'>;
 
-export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency: number): JunctionView {
+export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency: number, fit?: JunctionFit): JunctionView {
   const main = analyseMicrostrip(copper.seriesWidth, substrate, frequency);
   const stub = analyseMicrostrip(copper.stubWidth, substrate, frequency);
   const tee = tJunctionHammerstad(main, main, stub, substrate, frequency);
   // Balanced stubs meet the line in a cross, which is not two tees; each has its own fitted correction.
-  const j = fittedJunction(tee, stub, substrate, copper.stubCount === 2 ? CROSS_FIT : TEE_FIT);
+  const j = fittedJunction(tee, stub, substrate, fit ?? (copper.stubCount === 2 ? CROSS_FIT : TEE_FIT));
   return { da: j.da, db: j.db, d2: j.d2, n2a: j.n2a, n2b: j.n2b, susceptance: j.susceptance };
 }
 
@@ -47,7 +49,7 @@ export function physicalAbcd(copper: MatchCopper, substrate: Substrate, frequenc
   const gammaStub = lossless(propagationConstant(stubLine), models.loss);
   if (copper.stubCount === 0) return lineAbcd(main.z0, gammaMain, copper.seriesLength + copper.leadLength);
   const j: JunctionView = models.junction
-    ? junctionAt(copper, substrate, frequency)
+    ? junctionAt(copper, substrate, frequency, models.junctionFit)
     : { da: 0, db: 0, d2: copper.seriesWidth / 2, n2a: 1, n2b: 1, susceptance: 0 };
   // Stub: from the junction plane (d2 from the main-line centre) to its end.
   const stubFromPlane = copper.stubLength + copper.seriesWidth / 2 - j.d2;
