@@ -1,7 +1,10 @@
 // The part of a design folder's design.json the full-wave diagnostics read (model-sensitivity.ts,
-// tee-permittivity.ts). Not part of tunestrip.
+// tee-permittivity.ts), and where tunestrip's own network puts that copper's return-loss minimum.
+// Not part of tunestrip.
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { abs, complex } from '../../src/math/complex.js';
+import { mismatch, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
 import type { MatchCopper, Substrate } from '../../src/seams.js';
 
 export interface Line { readonly role: string; readonly width_m: number; readonly length_m: number }
@@ -43,4 +46,25 @@ export function copperOfRecord(d: DesignRecord): MatchCopper {
     stubCount,
     ...(d.solution.termination === 'short' && d.vias[0] ? { vias: { drill: d.vias[0].drill_m, pad: d.vias[0].pad_m, count: d.vias.length / stubCount } } : {}),
   };
+}
+
+export interface ModelMinimum { readonly f_min_hz: number; readonly offset_percent: number; readonly s11_db_at_f0: number }
+
+/**
+ * The return-loss minimum of `copper` (default: the design's own) in tunestrip's physical network
+ * with `models`, against the design's target: a grid over 0.7–1.3 f0 in steps of 0.01 % of f0.
+ */
+export function modelMinimum(d: DesignRecord, models: NetworkModels, copper: MatchCopper = copperOfRecord(d)): ModelMinimum {
+  const f0 = d.frequency_hz;
+  const load = complex(d.load_ohm[0], d.load_ohm[1]);
+  const target = complex(d.target_ohm[0], d.target_ohm[1]);
+  const substrate = substrateOfRecord(d);
+  const gammaAt = (f: number): number => abs(mismatch(physicalInputImpedance(copper, load, substrate, f, models), target));
+  let best = { f: f0, g: Infinity };
+  for (let k = 0; k <= 6000; k += 1) {
+    const f = f0 * (0.7 + (0.6 * k) / 6000);
+    const g = gammaAt(f);
+    if (g < best.g) best = { f, g };
+  }
+  return { f_min_hz: best.f, offset_percent: (100 * (best.f - f0)) / f0, s11_db_at_f0: 20 * Math.log10(gammaAt(f0)) };
 }

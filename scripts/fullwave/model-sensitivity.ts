@@ -7,10 +7,9 @@
 // term stays as it is), so a full-wave offset can be read as an equivalent via inductance. Diagnostic only (not part of tunestrip, not run by npm test).
 //
 //   npx tsx scripts/fullwave/model-sensitivity.ts OUT_DIR [OUT_DIR ...]
-import { complex, abs } from '../../src/math/complex.js';
-import { ALL_MODELS, mismatch, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
+import { ALL_MODELS, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
 import type { MatchCopper, Substrate } from '../../src/seams.js';
-import { copperOfRecord, readDesignRecord, substrateOfRecord } from './design-record.js';
+import { copperOfRecord, modelMinimum, readDesignRecord, substrateOfRecord, type ModelMinimum } from './design-record.js';
 import { viaInductanceGoldfarbPucel } from '../../src/physical/discontinuities/index.js';
 
 const variants: Readonly<Record<string, NetworkModels>> = {
@@ -24,20 +23,8 @@ for (const folder of process.argv.slice(2)) {
   const d = readDesignRecord(folder);
   const substrate: Substrate = substrateOfRecord(d);
   const copper: MatchCopper = copperOfRecord(d);
-  const load = complex(d.load_ohm[0], d.load_ohm[1]);
-  const target = complex(d.target_ohm[0], d.target_ohm[1]);
-  const f0 = d.frequency_hz;
-  const out: { [k: string]: { f_min_hz: number; offset_percent: number; s11_db_at_f0: number } } = {};
-  const minimum = (c: MatchCopper, models: NetworkModels) => {
-    let best = { f: f0, g: Infinity };
-    const gammaAt = (f: number) => abs(mismatch(physicalInputImpedance(c, load, substrate, f, models), target));
-    for (let k = 0; k <= 4000; k++) {
-      const f = f0 * (0.7 + (0.6 * k) / 4000);
-      const g = gammaAt(f);
-      if (g < best.g) best = { f, g };
-    }
-    return { f_min_hz: best.f, offset_percent: (100 * (best.f - f0)) / f0, s11_db_at_f0: 20 * Math.log10(gammaAt(f0)) };
-  };
+  const out: { [k: string]: ModelMinimum } = {};
+  const minimum = (c: MatchCopper, models: NetworkModels): ModelMinimum => modelMinimum(d, models, c);
   for (const [label, models] of Object.entries(variants)) out[label] = minimum(copper, models);
   if (copper.vias) {
     const vias = copper.vias;

@@ -18,10 +18,9 @@
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { abs, complex } from '../../src/math/complex.js';
 import { TEE_FIT, type JunctionFit } from '../../src/physical/discontinuities/index.js';
-import { ALL_MODELS, mismatch, physicalInputImpedance } from '../../src/analysis/physicalNetwork.js';
-import { copperOfRecord, readDesignRecord, substrateOfRecord, type DesignRecord } from './design-record.js';
+import { ALL_MODELS } from '../../src/analysis/physicalNetwork.js';
+import { modelMinimum, readDesignRecord, type DesignRecord } from './design-record.js';
 import { fittedTees, junctionElements, junctionPoints, nelderMead, readJunctions, rmsError, type JunctionPoint } from './junction-fit.js';
 
 const REFERENCE_ER = 4.4;
@@ -66,21 +65,7 @@ for (const record of data.tees) {
 // ---------------------------------------------------------------------------------------------
 // Designs: tunestrip's own physical network, with the junction correction given.
 
-function minimumOffset(d: DesignRecord, fit: JunctionFit): number {
-  const f0 = d.frequency_hz;
-  const target = complex(d.target_ohm[0], d.target_ohm[1]);
-  const load = complex(d.load_ohm[0], d.load_ohm[1]);
-  const copper = copperOfRecord(d);
-  const substrate = substrateOfRecord(d);
-  const models = { ...ALL_MODELS, junctionFit: fit };
-  let best = { f: f0, g: Infinity };
-  for (let k = 0; k <= 3000; k += 1) {
-    const fk = f0 * (0.85 + (0.3 * k) / 3000);
-    const g = abs(mismatch(physicalInputImpedance(copper, load, substrate, fk, models), target));
-    if (g < best.g) best = { f: fk, g };
-  }
-  return (100 * (best.f - f0)) / f0;
-}
+const minimumOffset = (d: DesignRecord, fit: JunctionFit): number => modelMinimum(d, { ...ALL_MODELS, junctionFit: fit }).offset_percent;
 
 const here = dirname(fileURLToPath(import.meta.url));
 const recorded = (JSON.parse(readFileSync(join(here, 'results.json'), 'utf8')) as { designs: { name: string; copper_model: string; offset_percent: number }[] }).designs;

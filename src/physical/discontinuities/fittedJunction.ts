@@ -13,10 +13,11 @@
 // Each stub of a cross is electrically shorter than the stub of a T, which these shifts capture. The
 // fit leaves an rms error of 0.006–0.018 in the even-mode S per case (the bare T: 0.015–0.13).
 //
-// TEE_FIT, for a single stub: eleven T-junctions (a twelfth held out), εr 3.0–10.2, h 0.508–1.6 mm,
+// TEE_FIT, for a single stub: eleven T-junctions (a twelfth held out), εr 2.2–10.2, h 0.508–1.6 mm,
 // 50 Ω main lines with 30–80 Ω stubs. Hammerstad's planes hold (planeA near 1, stubPlaneD2 near 0);
 // his transformer deficit is about 2.5 times too small and a wide stub's junction capacitance is
-// missing.
+// missing. On εr 10.2 the tees alone want shorter planes (planeA about 0.6–0.7) and every full-wave
+// design there lands low; scripts/fullwave/tee-permittivity.ts weighs a form that follows εr.
 //
 // Check designs outside these ranges by full-wave simulation.
 import type { LineProperties, Substrate } from '../../seams.js';
