@@ -159,14 +159,28 @@ export function rmsError(points: readonly JunctionPoint[], elementsOf: (p: Junct
   return Math.sqrt(sum / (9 * points.length));
 }
 
-const fitOf = (x: readonly number[]): JunctionFit => ({ planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]! });
+const fitOf = (x: readonly number[]): JunctionFit =>
+  x.length === 6
+    ? { planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]!, planeAPerEr: x[4]!, n2DeficitPerEr: x[5]! }
+    : { planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]! };
 
-/** Least-squares coefficients of the cross correction over all points (Nelder–Mead from `start`). */
+/**
+ * Least-squares coefficients of a junction correction over all points (Nelder–Mead from `start`,
+ * restarted until a restart stops improving). The εr terms are fitted when `start` has them.
+ */
 export function fitJunction(points: readonly JunctionPoint[], start: JunctionFit): { fit: JunctionFit; rms: number } {
-  const x0 = [start.planeA, start.stubPlaneD2, start.n2Deficit, start.susceptance];
-  const cost = (x: readonly number[]): number => rmsError(points, (p) => junctionElements(p, fitOf(x)));
-  const best = nelderMead(cost, x0, x0.map((v) => 0.2 * Math.abs(v) + 0.05));
-  return { fit: fitOf(best.x), rms: best.value };
+  const withEr = start.planeAPerEr !== undefined || start.n2DeficitPerEr !== undefined;
+  let x = [start.planeA, start.stubPlaneD2, start.n2Deficit, start.susceptance, ...(withEr ? [start.planeAPerEr ?? 0, start.n2DeficitPerEr ?? 0] : [])];
+  const cost = (v: readonly number[]): number => rmsError(points, (p) => junctionElements(p, fitOf(v)));
+  let value = Infinity;
+  for (let restart = 0; restart < 8; restart += 1) {
+    const best = nelderMead(cost, x, x.map((v) => 0.2 * Math.abs(v) + 0.05));
+    const done = best.value > value * (1 - 1e-6);
+    x = best.x;
+    value = Math.min(value, best.value);
+    if (done) break;
+  }
+  return { fit: fitOf(x), rms: value };
 }
 
 /** One cross case's own elements (d_a, d2, n², B) at one frequency, fitted to its S alone. */

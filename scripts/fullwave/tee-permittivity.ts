@@ -4,10 +4,7 @@
 //
 // Every design on εr 10.2 in results.json lands low. The per-case fits of the εr 10.2 tees want
 // smaller main-arm planes and a larger transformer deficit than TEE_FIT gives them, so this script
-// lets two of TEE_FIT's coefficients change linearly with εr about 4.4 (held to the extractions'
-// 2.2–10.2 outside it):
-//   planeA    → planeA + planeAPerEr·(εr − 4.4)
-//   n2Deficit → n2Deficit + n2DeficitPerEr·(εr − 4.4)
+// fits TEE_FIT's form with the optional εr terms of fittedJunction.ts (planeAPerEr, n2DeficitPerEr).
 // It fits the six coefficients to the fitted tees of junctions.json (least squares on S, as
 // junction-fit.ts does), prints the S error per tee, and then, for each design folder given, where
 // tunestrip's own network puts the return-loss minimum of that copper with the candidate instead of
@@ -21,38 +18,14 @@ import { fileURLToPath } from 'node:url';
 import { TEE_FIT, type JunctionFit } from '../../src/physical/discontinuities/index.js';
 import { ALL_MODELS } from '../../src/analysis/physicalNetwork.js';
 import { modelMinimum, readDesignRecord, type DesignRecord } from './design-record.js';
-import { fittedTees, junctionElements, junctionPoints, nelderMead, readJunctions, rmsError, type JunctionPoint } from './junction-fit.js';
+import { fitJunction, fittedTees, junctionElements, junctionPoints, readJunctions, rmsError, type JunctionPoint } from './junction-fit.js';
 
-const REFERENCE_ER = 4.4;
-const ER_RANGE = [2.2, 10.2] as const;
-
-interface PermittivityFit extends JunctionFit {
-  readonly planeAPerEr: number;
-  readonly n2DeficitPerEr: number;
-}
-
-/** The four-coefficient correction the candidate amounts to on a substrate of permittivity `er`. */
-function onSubstrate(fit: PermittivityFit, er: number): JunctionFit {
-  const x = Math.min(Math.max(er, ER_RANGE[0]), ER_RANGE[1]) - REFERENCE_ER;
-  return { planeA: fit.planeA + fit.planeAPerEr * x, stubPlaneD2: fit.stubPlaneD2, n2Deficit: fit.n2Deficit + fit.n2DeficitPerEr * x, susceptance: fit.susceptance };
-}
-
-const fitOf = (x: readonly number[]): PermittivityFit => ({ planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]!, planeAPerEr: x[4]!, n2DeficitPerEr: x[5]! });
-const candidateRms = (points: readonly JunctionPoint[], fit: PermittivityFit): number => rmsError(points, (p) => junctionElements(p, onSubstrate(fit, p.substrate.er)));
+const candidateRms = (points: readonly JunctionPoint[], fit: JunctionFit): number => rmsError(points, (p) => junctionElements(p, fit));
 
 const data = readJunctions();
 const points = junctionPoints(fittedTees(data));
-// Nelder–Mead from TEE_FIT with zero permittivity terms, restarted until it stops improving.
-let x = [TEE_FIT.planeA, TEE_FIT.stubPlaneD2, TEE_FIT.n2Deficit, TEE_FIT.susceptance, 0, 0];
-let value = Infinity;
-for (let restart = 0; restart < 8; restart += 1) {
-  const best = nelderMead((v) => candidateRms(points, fitOf(v)), x, x.map((v) => 0.2 * Math.abs(v) + 0.05));
-  const done = best.value > value * (1 - 1e-6);
-  x = best.x;
-  value = Math.min(value, best.value);
-  if (done) break;
-}
-const candidate = fitOf(x);
+// Least squares from TEE_FIT with zero permittivity terms (fitJunction fits them when they are given).
+const { fit: candidate, rms: value } = fitJunction(points, { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 });
 const f = (v: number, d: number): string => v.toFixed(d);
 console.log(`candidate over ${fittedTees(data).length} fitted tees: ${JSON.stringify(Object.fromEntries(Object.entries(candidate).map(([k, v]) => [k, Number(v.toFixed(4))])))}`);
 console.log(`  S rms: candidate ${f(value, 5)}, TEE_FIT ${f(rmsError(points, (p) => junctionElements(p, TEE_FIT)), 5)}, Hammerstad alone ${f(rmsError(points, (p) => junctionElements(p, undefined)), 5)}`);
@@ -74,7 +47,7 @@ if (folders.length > 0) console.log('\ndesign                            move of
 for (const folder of folders) {
   const d = readDesignRecord(folder);
   if (d.solution.style === 'balanced') continue; // a cross: CROSS_FIT, not this candidate
-  const move = minimumOffset(d, onSubstrate(candidate, d.substrate.er)) - minimumOffset(d, TEE_FIT);
+  const move = minimumOffset(d, candidate) - minimumOffset(d, TEE_FIT);
   const sheet = recorded.find((r) => r.name === d.name && r.copper_model.startsWith('zero'));
   const estimate = sheet ? `${f(sheet.offset_percent, 2)} %`.padEnd(29) + `${f(sheet.offset_percent - move, 2)} %` : 'not simulated';
   console.log(`${d.name.padEnd(34)}${(f(move, 2) + ' %').padEnd(35)}${estimate}`);

@@ -14,23 +14,35 @@
 // fit leaves an rms error of 0.006–0.018 in the even-mode S per case (the bare T: 0.015–0.13).
 //
 // TEE_FIT, for a single stub: eleven T-junctions (a twelfth held out), εr 2.2–10.2, h 0.508–1.6 mm,
-// 50 Ω main lines with 30–80 Ω stubs. Hammerstad's planes hold (planeA near 1, stubPlaneD2 near 0);
-// his transformer deficit is about 2.5 times too small and a wide stub's junction capacitance is
-// missing. On εr 10.2 the tees alone want shorter planes (planeA about 0.6–0.7) and every full-wave
-// design there lands low; scripts/fullwave/tee-permittivity.ts weighs a form that follows εr.
+// 50 Ω main lines with 30–80 Ω stubs. Hammerstad's planes hold near εr 4.4 (planeA near 1,
+// stubPlaneD2 near 0); his transformer deficit is about 2.5 times too small and a wide stub's
+// junction capacitance is missing. The εr 10.2 tees want shorter main-arm planes and a larger
+// deficit, and every full-wave design there lands low. A fit may therefore let those two
+// coefficients change linearly with εr about 4.4 (the optional terms below):
+//   planeA    → planeA + planeAPerEr·(εr − 4.4)
+//   n2Deficit → n2Deficit + n2DeficitPerEr·(εr − 4.4)
+// with εr held to the extractions' 2.2–10.2 (outside it the terms are not extrapolated). TEE_FIT
+// does not use them yet: adopting them moves every single-stub design's copper, and each recorded
+// full-wave run must then be repeated (scripts/fullwave/tee-permittivity.ts weighs the candidate).
 //
 // Check designs outside these ranges by full-wave simulation.
 import type { LineProperties, Substrate } from '../../seams.js';
 import { ETA0 } from '../microstrip/constants.js';
 import type { TJunction } from './tJunction.js';
 
-/** The four fitted coefficients of a junction correction (see above). */
+/** The fitted coefficients of a junction correction (see above); the εr terms default to 0. */
 export interface JunctionFit {
   readonly planeA: number;
   readonly stubPlaneD2: number;
   readonly n2Deficit: number;
   readonly susceptance: number;
+  readonly planeAPerEr?: number;
+  readonly n2DeficitPerEr?: number;
 }
+
+/** The permittivity the εr terms are taken about, and the span of the extractions they are held to. */
+export const FIT_REFERENCE_ER = 4.4;
+export const FIT_ER_RANGE = [2.2, 10.2] as const;
 
 export const CROSS_FIT: JunctionFit = { planeA: 1.545, stubPlaneD2: 0.236, n2Deficit: 2.27, susceptance: 2.88 };
 
@@ -38,10 +50,13 @@ export const TEE_FIT: JunctionFit = { planeA: 0.881, stubPlaneD2: 0.0076, n2Defi
 
 export function fittedJunction(tee: TJunction, stub: LineProperties, substrate: Substrate, fit: JunctionFit): TJunction {
   const d2Width = (ETA0 / stub.z0) * substrate.height / Math.sqrt(stub.epsEff);
-  const n2 = (n: number): number => Math.max(1 - fit.n2Deficit * (1 - n), 1e-3);
+  const erOffset = Math.min(Math.max(substrate.er, FIT_ER_RANGE[0]), FIT_ER_RANGE[1]) - FIT_REFERENCE_ER;
+  const planeA = fit.planeA + (fit.planeAPerEr ?? 0) * erOffset;
+  const n2Deficit = fit.n2Deficit + (fit.n2DeficitPerEr ?? 0) * erOffset;
+  const n2 = (n: number): number => Math.max(1 - n2Deficit * (1 - n), 1e-3);
   return {
-    da: fit.planeA * tee.da,
-    db: fit.planeA * tee.db,
+    da: planeA * tee.da,
+    db: planeA * tee.db,
     d2: tee.d2 + fit.stubPlaneD2 * d2Width,
     n2a: n2(tee.n2a),
     n2b: n2(tee.n2b),

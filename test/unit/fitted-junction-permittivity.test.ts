@@ -1,0 +1,37 @@
+// The optional permittivity terms of the fitted junction correction (fittedJunction.ts). Properties
+// of the code, no outside source: zero terms change nothing, the terms act about εr 4.4, and εr is
+// held to the extractions' span 2.2–10.2 instead of being extrapolated.
+import { describe, expect, it } from 'vitest';
+import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
+import { FIT_ER_RANGE, FIT_REFERENCE_ER, TEE_FIT, fittedJunction, tJunctionHammerstad } from '../../src/physical/discontinuities/index.js';
+import { substrate } from '../helpers/substrate.js';
+
+function junctionOn(er: number, fit = TEE_FIT) {
+  const board = substrate(er, 0.635e-3);
+  const main = analyseMicrostrip(0.6e-3, board, 4e9);
+  const stub = analyseMicrostrip(0.3e-3, board, 4e9);
+  return { bare: tJunctionHammerstad(main, main, stub, board, 4e9), fitted: fittedJunction(tJunctionHammerstad(main, main, stub, board, 4e9), stub, board, fit) };
+}
+const withEr = { ...TEE_FIT, planeAPerEr: -0.05, n2DeficitPerEr: 0.1 };
+
+describe('fitted junction: permittivity terms', () => {
+  it('zero terms give the same junction as none', () => {
+    expect(junctionOn(10.2, { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 }).fitted).toEqual(junctionOn(10.2).fitted);
+  });
+
+  it('at εr 4.4 the terms change nothing', () => {
+    expect(junctionOn(FIT_REFERENCE_ER, withEr).fitted).toEqual(junctionOn(FIT_REFERENCE_ER).fitted);
+  });
+
+  it('the main-arm plane follows planeA + planeAPerEr·(εr − 4.4)', () => {
+    const { bare, fitted } = junctionOn(8, withEr);
+    expect(fitted.da / bare.da).toBeCloseTo(TEE_FIT.planeA - 0.05 * (8 - 4.4), 12);
+  });
+
+  it('beyond the extractions the permittivity is held at 2.2 and 10.2', () => {
+    for (const [outside, edge] of [[12.9, FIT_ER_RANGE[1]], [1.5, FIT_ER_RANGE[0]]] as const) {
+      const { bare, fitted } = junctionOn(outside, withEr);
+      expect(fitted.da / bare.da).toBeCloseTo(TEE_FIT.planeA - 0.05 * (edge - FIT_REFERENCE_ER), 12);
+    }
+  });
+});
