@@ -18,9 +18,7 @@ import { fileURLToPath } from 'node:url';
 import { TEE_FIT, type JunctionFit } from '../../src/physical/discontinuities/index.js';
 import { ALL_MODELS } from '../../src/analysis/physicalNetwork.js';
 import { modelMinimum, readDesignRecord, type DesignRecord } from './design-record.js';
-import { fitJunction, fittedTees, junctionElements, junctionPoints, readJunctions, rmsError, type JunctionPoint } from './junction-fit.js';
-
-const candidateRms = (points: readonly JunctionPoint[], fit: JunctionFit): number => rmsError(points, (p) => junctionElements(p, fit));
+import { fitJunction, fittedTees, junctionElements, junctionPoints, readJunctions, rmsError } from './junction-fit.js';
 
 const data = readJunctions();
 const points = junctionPoints(fittedTees(data));
@@ -32,7 +30,7 @@ console.log(`  S rms: candidate ${f(value, 5)}, TEE_FIT ${f(rmsError(points, (p)
 console.log('\ntee                               candidate TEE_FIT   Hammerstad');
 for (const record of data.tees) {
   const own = junctionPoints([record]);
-  console.log(`${(record.name + (record.use === 'check' ? ' (held out)' : '')).padEnd(34)}${f(candidateRms(own, candidate), 5).padEnd(10)}${f(rmsError(own, (p) => junctionElements(p, TEE_FIT)), 5).padEnd(10)}${f(rmsError(own, (p) => junctionElements(p, undefined)), 5)}`);
+  console.log(`${(record.name + (record.use === 'check' ? ' (held out)' : '')).padEnd(34)}${f(rmsError(own, (p) => junctionElements(p, candidate)), 5).padEnd(10)}${f(rmsError(own, (p) => junctionElements(p, TEE_FIT)), 5).padEnd(10)}${f(rmsError(own, (p) => junctionElements(p, undefined)), 5)}`);
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -10,7 +10,8 @@ function junctionOn(er: number, fit = TEE_FIT) {
   const board = substrate(er, 0.635e-3);
   const main = analyseMicrostrip(0.6e-3, board, 4e9);
   const stub = analyseMicrostrip(0.3e-3, board, 4e9);
-  return { bare: tJunctionHammerstad(main, main, stub, board, 4e9), fitted: fittedJunction(tJunctionHammerstad(main, main, stub, board, 4e9), stub, board, fit) };
+  const bare = tJunctionHammerstad(main, main, stub, board, 4e9);
+  return { bare, fitted: fittedJunction(bare, stub, board, fit) };
 }
 const withEr = { ...TEE_FIT, planeAPerEr: -0.05, n2DeficitPerEr: 0.1 };
 
@@ -23,9 +24,10 @@ describe('fitted junction: permittivity terms', () => {
     expect(junctionOn(FIT_REFERENCE_ER, withEr).fitted).toEqual(junctionOn(FIT_REFERENCE_ER).fitted);
   });
 
-  it('the main-arm plane follows planeA + planeAPerEr·(εr − 4.4)', () => {
+  it('the main-arm plane follows planeA + planeAPerEr·(εr − 4.4), the deficit n2Deficit + n2DeficitPerEr·(εr − 4.4)', () => {
     const { bare, fitted } = junctionOn(8, withEr);
     expect(fitted.da / bare.da).toBeCloseTo(TEE_FIT.planeA - 0.05 * (8 - 4.4), 12);
+    expect((1 - fitted.n2a) / (1 - bare.n2a)).toBeCloseTo(TEE_FIT.n2Deficit + 0.1 * (8 - 4.4), 9);
   });
 
   it('beyond the extractions the permittivity is held at 2.2 and 10.2', () => {
