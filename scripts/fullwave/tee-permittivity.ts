@@ -1,15 +1,15 @@
-// A candidate T-junction correction that follows the substrate's permittivity, weighed against the
-// one the design uses (TEE_FIT), without openEMS. Diagnostic only (not part of tunestrip, not run by
-// npm test).
+// The permittivity-dependent T-junction correction (TEE_FIT with its εr terms), refitted and weighed
+// without openEMS. Diagnostic only (not part of tunestrip, not run by npm test).
 //
-// Every design on εr 10.2 in results.json lands low. The per-case fits of the εr 10.2 tees want
-// smaller main-arm planes and a larger transformer deficit than TEE_FIT gives them, so this script
-// fits TEE_FIT's form with the optional εr terms of fittedJunction.ts (planeAPerEr, n2DeficitPerEr).
-// It fits the six coefficients to the fitted tees of junctions.json (least squares on S, as
-// junction-fit.ts does), prints the S error per tee, and then, for each design folder given, where
-// tunestrip's own network puts the return-loss minimum of that copper with the candidate instead of
-// TEE_FIT. The recorded full-wave offset minus that move is, to first order, where a redesign with
-// the candidate would land (the same estimate the third round of README.md made; it held to 0.16 %).
+// With one set of coefficients for all εr, every design on εr 10.2 in results.json landed low: the
+// per-case fits of the εr 10.2 tees want smaller main-arm planes and a larger transformer deficit.
+// This script fits TEE_FIT's form with the optional εr terms of fittedJunction.ts (planeAPerEr,
+// n2DeficitPerEr) to the fitted tees of junctions.json (least squares on S, as junction-fit.ts
+// does), prints the S error per tee against TEE_FIT and Hammerstad alone, and then, for each design
+// folder given, where tunestrip's own network puts the return-loss minimum of that copper with the
+// refitted candidate instead of TEE_FIT. The recorded full-wave offset minus that move is, to first
+// order, where a redesign with the candidate would land (it held to 0.12 % when TEE_FIT took these
+// terms; see the sixth round of README.md).
 //
 //   npx tsx scripts/fullwave/tee-permittivity.ts [OUT_DIR ...]
 import { readFileSync } from 'node:fs';

@@ -17,7 +17,12 @@ const withEr = { ...TEE_FIT, planeAPerEr: -0.05, n2DeficitPerEr: 0.1 };
 
 describe('fitted junction: permittivity terms', () => {
   it('zero terms give the same junction as none', () => {
-    expect(junctionOn(10.2, { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 }).fitted).toEqual(junctionOn(10.2).fitted);
+    const { planeAPerEr: _plane, n2DeficitPerEr: _deficit, ...withoutTerms } = TEE_FIT;
+    expect(junctionOn(10.2, { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 }).fitted).toEqual(junctionOn(10.2, withoutTerms).fitted);
+  });
+
+  it('the adopted fit carries permittivity terms that move the junction on εr 10.2', () => {
+    expect(junctionOn(10.2).fitted.da).not.toBeCloseTo(junctionOn(10.2, { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 }).fitted.da, 9);
   });
 
   it('at εr 4.4 the terms change nothing', () => {
