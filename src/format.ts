@@ -26,3 +26,10 @@ export function impedanceText(re: number, im: number, decimals = 2): string {
   if (i === '0') return r;
   return `${r}${im < 0 ? '-' : '+'}j${i}`;
 }
+
+/**
+ * A model's |S11| in dB for a person to read. A solve that converged leaves a residual at the
+ * level of floating-point noise (−200 to −300 dB); printing that figure would suggest a precision
+ * no model has, so anything below −100 dB reads as "below -100 dB".
+ */
+export const modelS11Text = (db: number): string => (db < -100 ? 'below -100 dB' : `${fixed(db, 1)} dB`);

@@ -2,7 +2,7 @@
 import type { Diagnostic } from '../diagnostics.js';
 import type { DesignRun } from '../design.js';
 import type { IdealSolution, LineProperties } from '../seams.js';
-import { fixed, ghz, impedanceText, mm } from '../format.js';
+import { fixed, ghz, impedanceText, mm, modelS11Text } from '../format.js';
 
 
 const ROLE_LABEL = { series: 'series line', stub: 'stub', 'lead-source': 'source lead', 'lead-load': 'load lead' } as const;
@@ -28,7 +28,7 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
   const b = geometry.bounds;
   lines.push(`  footprint ${mm(b.xmax - b.xmin, 2)} × ${mm(b.ymax - b.ymin, 2)} mm (x ${mm(b.xmin, 2)}…${mm(b.xmax, 2)}, y ${mm(b.ymin, 2)}…${mm(b.ymax, 2)})`);
   lines.push(
-    `  predicted |S11| at f0 ${fixed(Math.max(physical.s11DbAtF0, -200), 1)} dB; ${response.band10dB ? `return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)}` : 'return loss below 10 dB at f0'}`,
+    `  predicted |S11| at f0 ${modelS11Text(physical.s11DbAtF0)}; ${response.band10dB ? `return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)}` : 'return loss below 10 dB at f0'}`,
   );
   const tol = response.tolerance;
   if (tol) {

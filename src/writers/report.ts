@@ -2,7 +2,7 @@
 // length was corrected, what the model predicts, and the cautions that go with RF hardware.
 import type { Artifact, Section } from '../seams.js';
 import type { DesignRecordInput } from './json.js';
-import { fixed, ghz, impedanceText, mm, trimmed } from '../format.js';
+import { fixed, ghz, impedanceText, mm, modelS11Text, trimmed } from '../format.js';
 
 export type ReportInput = DesignRecordInput;
 
@@ -68,7 +68,7 @@ export function writeReport(input: ReportInput): Artifact {
   }
   out.push('');
   out.push('## Predicted response', '');
-  out.push(`- |S11| at ${ghz(spec.frequency)} in the physical model: ${fixed(Math.max(physical.s11DbAtF0, -200), 1)} dB`);
+  out.push(`- |S11| at ${ghz(spec.frequency)} in the physical model: ${modelS11Text(physical.s11DbAtF0)}`);
   out.push(
     response.band10dB
       ? `- return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)} (within the swept ${ghz(spec.sweep.start)} to ${ghz(spec.sweep.stop)})`

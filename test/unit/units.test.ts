@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { errorOf } from '../helpers/errors.js';
 import fc from 'fast-check';
 import { TunestripError } from '../../src/diagnostics.js';
-import { impedanceText } from '../../src/format.js';
+import { impedanceText, modelS11Text } from '../../src/format.js';
 import { SI_PREFIXES, formatEngineering, parseImpedance, parseQuantity, type Dimension } from '../../src/units.js';
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(a), Math.abs(b), Number.MIN_VALUE);
@@ -260,5 +260,18 @@ describe('fuzz: only TunestripError escapes', () => {
       }),
       { seed: 42, numRuns: 500 },
     );
+  });
+});
+
+// A converged solve leaves a residual at floating-point noise; a person should not read -291.6 dB
+// as a prediction (common practice, no source: model figures below about -100 dB carry no meaning).
+describe('modelS11Text', () => {
+  it('prints ordinary values to 0.1 dB', () => {
+    expect(modelS11Text(-29.44)).toBe('-29.4 dB');
+    expect(modelS11Text(-100)).toBe('-100.0 dB');
+  });
+  it('prints a solver residual as a bound, not a figure', () => {
+    expect(modelS11Text(-100.01)).toBe('below -100 dB');
+    expect(modelS11Text(-291.64)).toBe('below -100 dB');
   });
 });
