@@ -15,8 +15,9 @@ What it does, per design folder (the output of `tunestrip design`):
      diameter) from the ground to the copper.
   3. Extends the line beyond each reference plane (load plane and source plane) by a straight
      feed of the same width, with an openEMS microstrip port at its far end. Two runs, one per
-     excited port. The port's own line impedance and propagation constant (measured in the run)
-     move voltage and current from the measurement plane to the design's reference plane.
+     excited port. The port's own line impedance and phase constant (measured in the run), with
+     the feed's dielectric attenuation, move voltage and current from the measurement plane to the
+     design's reference plane. A run ends when its energy has fallen by 60 dB (--end-criteria).
   4. From the two runs, the 2-port impedance matrix of the copper: Z = V · I⁻¹ (both excitations),
      so imperfect port terminations do not matter. The load port is then terminated in software
      with the design's constant load impedance (tunestrip's assumption), and the reflection at the
@@ -61,7 +62,7 @@ CELLS_ACROSS_WIDTH = 4         # inside the copper's extent, cells ≤ narrowest
 SUBSTRATE_CELLS = 5            # cells across the substrate height
 VIA_CELLS_PER_RADIUS = 2       # fine cells across a via radius
 GROWTH = 1.4                   # neighbouring-cell ratio
-END_CRITERIA = 1e-5            # energy decay (−50 dB) ends a run
+END_CRITERIA = 1e-6            # energy decay (−60 dB) ends a run; 1e-5 stopped too early (README)
 BAND = (0.8, 1.2)              # evaluation band, × f0
 BAND_POINTS = 1601
 
@@ -219,7 +220,7 @@ def plan_model(design: dict, refine: float = 1.0, thick: bool = False) -> dict:
 def run_one(args):
     plan, excite_role, sim_path, threads = args
     f0 = plan['f0']
-    fdtd = openEMS(EndCriteria=END_CRITERIA, NrTS=2_000_000)
+    fdtd = openEMS(EndCriteria=plan.get('end_criteria', END_CRITERIA), NrTS=2_000_000)
     # Gaussian pulse centred on f0, −20 dB at f0 ± 0.6·f0: covers the band with margin.
     fdtd.SetGaussExcite(f0, 0.6 * f0)
     fdtd.SetBoundaryCond(['MUR', 'MUR', 'MUR', 'MUR', 'PEC', 'MUR'])
@@ -267,10 +268,11 @@ def run_one(args):
     out = {'seconds': seconds}
     for role, port in ports.items():
         f = plan['feeds'][role]
-        # Move V and I from the measurement plane to the reference plane with the port line's own
-        # measured β and impedance (the openEMS port does this when given the shift from its start).
-        port.CalcPort(sim_path, freq, ref_plane_shift=abs(f['x_far'] - f['x_ref']))
-        out[role] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+        # V and I at the measurement plane, and the port line's measured β and impedance.
+        port.CalcPort(sim_path, freq)
+        alpha = feed_attenuation(np.real(port.beta), freq, plan['er'], plan['kappa'])
+        v, i = shift_along_line(port.uf_tot, port.if_tot, np.real(port.beta) - 1j * alpha, port.Z_ref, plan['meas'] * UNIT)
+        out[role] = {'v': v, 'i': i, 'beta': port.beta, 'zl': port.Z_ref, 'alpha': alpha}
     out['freq'] = freq
     np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
     return out
@@ -278,6 +280,32 @@ def run_one(args):
 
 # ---------------------------------------------------------------------------------------------
 # Post-processing
+
+
+def feed_attenuation(beta, freq, er, kappa):
+    """Dielectric attenuation (Np/m) of the feed line, from its measured phase constant.
+
+    openEMS 0.0.35's own reference-plane shift (ports.py, CalcPort) uses only Re(β), so a lossy
+    feed's attenuation over the measurement distance stayed in the de-embedded impedance. The
+    quasi-TEM dielectric attenuation α_d = k0·εr(εe−1)·tanδ / (2√εe(εr−1)) (Pozar, Microwave
+    Engineering, 4th ed., 2012, §3.8, microstrip attenuation due to dielectric loss; equation from
+    memory) with tanδ = κ/(ωε0εr), the FDTD's own conductivity, reduces to η0·κ·(εe−1)/(2√εe(εr−1)).
+    The measured Im(β) agrees with it within a few % where the standing wave is mild, but is noisy
+    where the port sees a large reflection, so the formula with the measured εe is used.
+    """
+    if kappa == 0:
+        return np.zeros_like(beta)
+    eps_eff = (beta / (2 * np.pi * freq / C0)) ** 2
+    eta0 = 376.730313668
+    return eta0 * kappa * (eps_eff - 1) / (2 * np.sqrt(eps_eff) * (er - 1))
+
+
+def shift_along_line(v, i, gamma_beta, z0, length):
+    """V and I moved `length` (m) along a uniform line toward the copper, e^{-jβx} convention with
+    a complex β = β' − jα; the same transform openEMS applies, with the attenuation kept."""
+    phase = gamma_beta * length
+    return (v * np.cos(-phase) + 1j * i * z0 * np.sin(-phase),
+            i * np.cos(-phase) + 1j * v / z0 * np.sin(-phase))
 
 
 def impedance_matrix(run_src, run_load):
@@ -350,10 +378,10 @@ def run_or_reuse(worker, jobs, reuse):
         return pool.map(worker, jobs)
 
 
-def simulate(folder, work, threads, reuse, refine=2.0, thick=False):
+def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria=END_CRITERIA):
     design = read_design(folder)
     name = design['name']
-    plan = plan_model(design, refine, thick)
+    plan = {**plan_model(design, refine, thick), 'end_criteria': end_criteria}
     tag = name + ('' if refine == 1.0 else f'-refine{refine:g}') + ('-thick' if thick else '')
     jobs = [(plan, role, os.path.join(work, tag, 'excite-' + role), threads) for role in ('source', 'load')]
     runs = run_or_reuse(run_one, jobs, reuse)
@@ -373,7 +401,14 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False):
     for role in ('source', 'load'):
         beta = run_src[role]['beta'][k0] if role == 'source' else run_load[role]['beta'][k0]
         zl = run_src[role]['zl'][k0] if role == 'source' else run_load[role]['zl'][k0]
-        port_line[role] = {'eps_eff': float((np.real(beta) / k_f0) ** 2), 'z0_ohm': float(np.real(zl))}
+        own = run_src if role == 'source' else run_load
+        if 'alpha' not in own[role]:
+            raise SystemExit(f'{name}: ports.npy comes from an older simulate.py (lossless shift); run again without --reuse')
+        port_line[role] = {
+            'eps_eff': float((np.real(beta) / k_f0) ** 2), 'z0_ohm': float(np.real(zl)),
+            'alpha_db_per_m_deembedded': float(own[role]['alpha'][k0] * 20 / math.log(10)),
+            'alpha_db_per_m_measured': float(-np.imag(beta) * 20 / math.log(10)),
+        }
     lines = {l['role']: l for l in design['lines']}
     model_f = model_minimum(folder, target)
     nx, ny, nz = (len(plan['mesh'][a]) for a in 'xyz')
@@ -396,6 +431,8 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False):
         'model_f_min_hz': model_f,
         'fdtd_port_line_at_f0': port_line,
         'reciprocity_error': reciprocity,
+        'end_criteria': end_criteria,
+        'deembedding': 'lossy feed (measured beta, dielectric attenuation)',
         'mesh': {
             'cells': [nx - 1, ny - 1, nz - 1],
             'max_cell_mm': plan['res'],
@@ -421,6 +458,7 @@ def main():
     ap.add_argument('--threads', type=int, default=1, help='threads per run (two runs go in parallel)')
     ap.add_argument('--refine', type=float, default=2.0, help='divide every cell size by this (2 is the recorded setting; 1 and 1.5 for a convergence check)')
     ap.add_argument('--thick', action='store_true', help="draw the design's copper with the stackup's thickness")
+    ap.add_argument('--end-criteria', type=float, default=END_CRITERIA, help='energy decay that ends a run (1e-6, −60 dB, is the recorded setting)')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
     ap.add_argument('--no-write', action='store_true', help='print only; leave results.json alone')
     args = ap.parse_args()
@@ -429,7 +467,7 @@ def main():
         with open(args.results, encoding='utf8') as f:
             results = json.load(f)
     for n, folder in enumerate(args.folders):
-        r = simulate(folder, args.work, args.threads, args.reuse, args.refine, args.thick)
+        r = simulate(folder, args.work, args.threads, args.reuse, args.refine, args.thick, args.end_criteria)
         if n < len(args.spec):
             r['spec'] = os.path.relpath(args.spec[n], os.path.join(os.path.dirname(os.path.abspath(__file__)), '..', '..'))
         print(json.dumps({k: r[k] for k in ('name', 'f_min_hz', 'offset_percent', 's11_db_at_f0', 's11_db_at_min', 'fdtd_port_line_at_f0', 'reciprocity_error', 'mesh', 'run_seconds')}, indent=1), flush=True)
