@@ -4,7 +4,7 @@
 //
 //   npx tsx scripts/fullwave/model-two-port.ts OUT_DIR F_HZ [junction|openEnd|via]
 import { ALL_MODELS, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
-import { complex, type Complex } from '../../src/math/complex.js';
+import { complex, div, mul, sqrt, sub, type Complex } from '../../src/math/complex.js';
 import { copperOfRecord, readDesignRecord, substrateOfRecord } from './design-record.js';
 
 const [folder, frequencyText, without] = process.argv.slice(2);
@@ -15,12 +15,6 @@ const sheet = { ...substrateOfRecord(d), copper: 0, conductivity: 1e15, roughnes
 const models: NetworkModels = without ? { ...ALL_MODELS, [without]: false } : ALL_MODELS;
 const zin = (load: Complex): Complex => physicalInputImpedance(copperOfRecord(d), load, sheet, f, models);
 
-const sub = (a: Complex, b: Complex): Complex => complex(a.re - b.re, a.im - b.im);
-const mul = (a: Complex, b: Complex): Complex => complex(a.re * b.re - a.im * b.im, a.re * b.im + a.im * b.re);
-const div = (a: Complex, b: Complex): Complex => {
-  const m = b.re * b.re + b.im * b.im;
-  return complex((a.re * b.re + a.im * b.im) / m, (a.im * b.re - a.re * b.im) / m);
-};
 const text = (z: Complex): string => `${z.re.toFixed(2)}${z.im >= 0 ? '+' : '-'}${Math.abs(z.im).toFixed(2)}j`;
 
 const z11 = zin(complex(1e12, 0));
@@ -29,7 +23,5 @@ const z50 = zin(complex(50, 0));
 // (Z11 − Zin(R))(Z22 + R) = Z12² = (Z11 − Zin(0))·Z22  ⇒  Z22 = R·(Z11 − Zin(R)) / (Zin(R) − Zin(0))
 const z22 = div(mul(complex(50, 0), sub(z11, z50)), sub(z50, zShort));
 const z12Squared = mul(sub(z11, zShort), z22);
-const r = Math.sqrt(Math.hypot(z12Squared.re, z12Squared.im));
-const angle = Math.atan2(z12Squared.im, z12Squared.re) / 2;
-const z12 = complex(r * Math.cos(angle), r * Math.sin(angle));
+const z12 = sqrt(z12Squared);
 console.log(`model${without ? ` without ${without}` : ''} at ${f / 1e9} GHz: Z11=${text(z11)} Z12=±(${text(z12)}) Z22=${text(z22)}`);
