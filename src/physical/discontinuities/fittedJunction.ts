@@ -18,7 +18,8 @@
 // stubPlaneD2 near 0); his transformer deficit is about 2.5 times too small and a wide stub's
 // junction capacitance is missing. The εr 10.2 tees want shorter main-arm planes and a larger
 // deficit (with one set of coefficients for all εr, the full-wave designs there landed about 2 %
-// low), so TEE_FIT lets those two coefficients change linearly with εr about 4.4:
+// low, in runs stopped at −50 dB), so TEE_FIT lets those two coefficients change linearly with εr
+// about 4.4:
 //   planeA    → planeA + planeAPerEr·(εr − 4.4)
 //   n2Deficit → n2Deficit + n2DeficitPerEr·(εr − 4.4)
 // with εr held to the extractions' 2.2–10.2 (outside it the terms are not extrapolated). Fitted by
