@@ -12,6 +12,8 @@ if (!folder || !frequencyText) throw new Error('usage: model-two-port.ts OUT_DIR
 const d = readDesignRecord(folder);
 const f = Number(frequencyText);
 const sheet = { ...substrateOfRecord(d), copper: 0, conductivity: 1e15, roughness: 0, tanDelta: 0 };
+const isModel = (name: string): name is keyof NetworkModels => Object.keys(ALL_MODELS).includes(name);
+if (without !== undefined && !isModel(without)) throw new Error(`unknown model '${without}': one of ${Object.keys(ALL_MODELS).join(', ')}`);
 const models: NetworkModels = without ? { ...ALL_MODELS, [without]: false } : ALL_MODELS;
 const zin = (load: Complex): Complex => physicalInputImpedance(copperOfRecord(d), load, sheet, f, models);
 
