@@ -57,6 +57,7 @@ REFINE = 2.0
 # junctions.json was made with the energy decay at 1e-5 (−50 dB); simulate.py now stops at 1e-6
 # because 1e-5 left run-to-run scatter in a broad match (README). The extractions were not re-run.
 JUNCTION_END_CRITERIA = 1e-5
+SETTINGS = {'end_criteria': JUNCTION_END_CRITERIA, 'results': RESULTS}  # set once from the command line
 FIT_POINTS = 13              # frequencies recorded per cross, over FIT_BAND × f0
 FIT_BAND = (0.7, 1.3)
 
@@ -160,7 +161,7 @@ def run_fdtd(fdtd, csx, sim_path):
 
 
 def new_fdtd(f0, mesh):
-    fdtd = openEMS(EndCriteria=JUNCTION_END_CRITERIA, NrTS=2_000_000)
+    fdtd = openEMS(EndCriteria=SETTINGS['end_criteria'], NrTS=2_000_000)
     fdtd.SetGaussExcite(f0, 0.6 * f0)
     fdtd.SetBoundaryCond(['MUR', 'MUR', 'MUR', 'MUR', 'PEC', 'MUR'])
     csx = ContinuousStructure()
@@ -296,6 +297,7 @@ def extract_cross(p, work, reuse):
         'symmetry_error': round(symmetry, 6),
         'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
                  'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'end_criteria': SETTINGS['end_criteria'],
         'run_seconds': round(max(r['seconds'] for r in runs), 1),
     }
 
@@ -387,6 +389,7 @@ def extract_via(p, work, reuse):
         'fdtd_line_z_ohm_at_f0': round(float(np.real(run['zl'][k0])), 4),
         'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
                  'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'end_criteria': SETTINGS['end_criteria'],
         'run_seconds': round(run['seconds'], 1),
     }
 
@@ -462,21 +465,23 @@ def extract_open(p, work, reuse):
         'fdtd_line_z_ohm_at_f0': round(float(np.real(run['zl'][k0])), 4),
         'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
                  'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'end_criteria': SETTINGS['end_criteria'],
         'run_seconds': round(run['seconds'], 1),
     }
 
 
 def save(kind, entry):
     data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'open_ends': [], 'vias': []}
-    if os.path.exists(RESULTS):
-        with open(RESULTS, encoding='utf8') as f:
+    results = SETTINGS['results']
+    if os.path.exists(results):
+        with open(results, encoding='utf8') as f:
             data = {**data, **json.load(f)}
     data['solver'] = fw.openems_version()
     data[kind] = sorted([d for d in data[kind] if d['name'] != entry['name']] + [entry], key=lambda d: d['name'])
-    with open(RESULTS + '.tmp', 'w', encoding='utf8') as f:
+    with open(results + '.tmp', 'w', encoding='utf8') as f:
         json.dump(data, f, indent=1)
         f.write('\n')
-    os.replace(RESULTS + '.tmp', RESULTS)
+    os.replace(results + '.tmp', results)
 
 
 def main():
@@ -486,7 +491,11 @@ def main():
     ap.add_argument('--work', default='/tmp/fullwave-junctions')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
     ap.add_argument('--parallel', type=int, default=1, help='open-end or via cases run side by side (one thread each)')
+    ap.add_argument('--end-criteria', type=float, default=JUNCTION_END_CRITERIA,
+                    help='stop when the field energy has decayed to this fraction of its peak')
+    ap.add_argument('--results', default=RESULTS, help='the JSON file the entries are written into')
     args = ap.parse_args()
+    SETTINGS.update(end_criteria=args.end_criteria, results=os.path.abspath(args.results))
     table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
     if args.names and len(cases) != len(args.names):

@@ -145,7 +145,7 @@ export function modelS(point: JunctionPoint, j: JunctionElements): Matrix {
 export function junctionElements(point: JunctionPoint, fit: JunctionFit | undefined): JunctionElements {
   const f = point.main.frequency;
   const tee = tJunctionHammerstad(point.main, point.main, point.stub, point.substrate, f);
-  const j = fit ? fittedJunction(tee, point.stub, point.substrate, fit) : tee;
+  const j = fit ? fittedJunction(tee, point.main, point.stub, point.substrate, fit) : tee;
   return { da: j.da, d2: j.d2, n2: j.n2a, susceptance: j.susceptance };
 }
 
@@ -159,18 +159,24 @@ export function rmsError(points: readonly JunctionPoint[], elementsOf: (p: Junct
   return Math.sqrt(sum / (9 * points.length));
 }
 
-const fitOf = (x: readonly number[]): JunctionFit =>
-  x.length === 6
-    ? { planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]!, planeAPerEr: x[4]!, n2DeficitPerEr: x[5]! }
-    : { planeA: x[0]!, stubPlaneD2: x[1]!, n2Deficit: x[2]!, susceptance: x[3]! };
+/** The optional terms of a junction correction, fitted when the start value carries them. */
+const OPTIONAL_TERMS = ['planeAPerEr', 'n2DeficitPerEr', 'planeAPerLogZRatio', 'n2DeficitPerLogZRatio', 'susceptancePerLogZRatio'] as const;
 
 /**
  * Least-squares coefficients of a junction correction over all points (Nelder–Mead from `start`,
- * restarted until a restart stops improving). The εr terms are fitted when `start` has them.
+ * restarted until a restart stops improving). The optional terms (εr, impedance ratio) are fitted
+ * when `start` has them.
  */
 export function fitJunction(points: readonly JunctionPoint[], start: JunctionFit): { fit: JunctionFit; rms: number } {
-  const withEr = start.planeAPerEr !== undefined || start.n2DeficitPerEr !== undefined;
-  let x = [start.planeA, start.stubPlaneD2, start.n2Deficit, start.susceptance, ...(withEr ? [start.planeAPerEr ?? 0, start.n2DeficitPerEr ?? 0] : [])];
+  const optional = OPTIONAL_TERMS.filter((k) => start[k] !== undefined);
+  const fitOf = (v: readonly number[]): JunctionFit => ({
+    planeA: v[0]!,
+    stubPlaneD2: v[1]!,
+    n2Deficit: v[2]!,
+    susceptance: v[3]!,
+    ...Object.fromEntries(optional.map((k, i) => [k, v[4 + i]!])),
+  });
+  let x = [start.planeA, start.stubPlaneD2, start.n2Deficit, start.susceptance, ...optional.map((k) => start[k]!)];
   const cost = (v: readonly number[]): number => rmsError(points, (p) => junctionElements(p, fitOf(v)));
   let value = Infinity;
   for (let restart = 0; restart < 8; restart += 1) {

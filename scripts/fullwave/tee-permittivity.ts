@@ -11,7 +11,10 @@
 // order, where a redesign with the candidate would land (it held to 0.12 % when TEE_FIT took these
 // terms; see the sixth round of README.md).
 //
-//   npx tsx scripts/fullwave/tee-permittivity.ts [OUT_DIR ...]
+// With `--ratio` the candidate also fits susceptancePerLogZRatio (a junction capacitance that grows
+// with ln(Z_main/Z_stub); ninth round of README.md), starting from TEE_FIT.
+//
+//   npx tsx scripts/fullwave/tee-permittivity.ts [--ratio] [OUT_DIR ...]
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -23,7 +26,13 @@ import { fitJunction, fittedTees, junctionElements, junctionPoints, readJunction
 const data = readJunctions();
 const points = junctionPoints(fittedTees(data));
 // Least squares from TEE_FIT with zero permittivity terms (fitJunction fits them when they are given).
-const { fit: candidate, rms: value } = fitJunction(points, { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 });
+// --ratio=TERM,TERM adds those impedance-ratio terms (planeAPerLogZRatio, n2DeficitPerLogZRatio, susceptancePerLogZRatio).
+const ratioArg = process.argv.find((a) => a.startsWith('--ratio='));
+const ratioTerms = ratioArg ? ratioArg.slice('--ratio='.length).split(',') : [];
+const { fit: candidate, rms: value } = fitJunction(
+  points,
+  ratioArg ? { ...TEE_FIT, ...Object.fromEntries(ratioTerms.map((t) => [t, 0])) } : { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 },
+);
 const f = (v: number, d: number): string => v.toFixed(d);
 console.log(`candidate over ${fittedTees(data).length} fitted tees: ${JSON.stringify(Object.fromEntries(Object.entries(candidate).map(([k, v]) => [k, Number(v.toFixed(4))])))}`);
 console.log(`  S rms: candidate ${f(value, 5)}, TEE_FIT ${f(rmsError(points, (p) => junctionElements(p, TEE_FIT)), 5)}, Hammerstad alone ${f(rmsError(points, (p) => junctionElements(p, undefined)), 5)}`);
@@ -40,7 +49,7 @@ const minimumOffset = (d: DesignRecord, fit: JunctionFit): number => modelMinimu
 
 const here = dirname(fileURLToPath(import.meta.url));
 const recorded = (JSON.parse(readFileSync(join(here, 'results.json'), 'utf8')) as { designs: { name: string; copper_model: string; offset_percent: number }[] }).designs;
-const folders = process.argv.slice(2);
+const folders = process.argv.slice(2).filter((a) => !a.startsWith('--ratio='));
 if (folders.length > 0) console.log('\ndesign                            move of the model minimum          recorded full-wave (sheet)   first-order estimate');
 for (const folder of folders) {
   const d = readDesignRecord(folder);

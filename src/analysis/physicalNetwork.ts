@@ -32,7 +32,7 @@ export function junctionAt(copper: MatchCopper, substrate: Substrate, frequency:
   const stub = analyseMicrostrip(copper.stubWidth, substrate, frequency);
   const tee = tJunctionHammerstad(main, main, stub, substrate, frequency);
   // Balanced stubs meet the line in a cross, which is not two tees; each has its own fitted correction.
-  const j = fittedJunction(tee, stub, substrate, fit ?? (copper.stubCount === 2 ? CROSS_FIT : TEE_FIT));
+  const j = fittedJunction(tee, main, stub, substrate, fit ?? (copper.stubCount === 2 ? CROSS_FIT : TEE_FIT));
   return { da: j.da, db: j.db, d2: j.d2, n2a: j.n2a, n2b: j.n2b, susceptance: j.susceptance };
 }
 

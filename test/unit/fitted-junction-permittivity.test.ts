@@ -1,9 +1,10 @@
-// The optional permittivity terms of the fitted junction correction (fittedJunction.ts). Properties
-// of the code, no outside source: zero terms change nothing, the terms act about εr 4.4, and εr is
-// held to the extractions' span 2.2–10.2 instead of being extrapolated.
+// The optional permittivity and impedance-ratio terms of the fitted junction correction
+// (fittedJunction.ts). Properties of the code, no outside source: zero terms change nothing, the
+// terms act about εr 4.4 and ratio 0, and both are held to the extractions' spans instead of being
+// extrapolated.
 import { describe, expect, it } from 'vitest';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { FIT_ER_RANGE, FIT_REFERENCE_ER, TEE_FIT, fittedJunction, tJunctionHammerstad } from '../../src/physical/discontinuities/index.js';
+import { FIT_ER_RANGE, FIT_LOG_Z_RATIO_RANGE, FIT_REFERENCE_ER, TEE_FIT, fittedJunction, tJunctionHammerstad } from '../../src/physical/discontinuities/index.js';
 import { substrate } from '../helpers/substrate.js';
 
 function junctionOn(er: number, fit = TEE_FIT) {
@@ -11,7 +12,7 @@ function junctionOn(er: number, fit = TEE_FIT) {
   const main = analyseMicrostrip(0.6e-3, board, 4e9);
   const stub = analyseMicrostrip(0.3e-3, board, 4e9);
   const bare = tJunctionHammerstad(main, main, stub, board, 4e9);
-  return { bare, fitted: fittedJunction(bare, stub, board, fit) };
+  return { bare, fitted: fittedJunction(bare, main, stub, board, fit) };
 }
 const withEr = { ...TEE_FIT, planeAPerEr: -0.05, n2DeficitPerEr: 0.1 };
 
@@ -40,5 +41,40 @@ describe('fitted junction: permittivity terms', () => {
       const { bare, fitted } = junctionOn(outside, withEr);
       expect(fitted.da / bare.da).toBeCloseTo(TEE_FIT.planeA - 0.05 * (edge - FIT_REFERENCE_ER), 12);
     }
+  });
+});
+
+// The optional impedance-ratio terms (weighed in the ninth full-wave round, not adopted by TEE_FIT).
+function junctionWith(stubWidth: number, fit: Parameters<typeof fittedJunction>[4]) {
+  const board = substrate(FIT_REFERENCE_ER, 0.635e-3);
+  const main = analyseMicrostrip(1.2e-3, board, 4e9);
+  const stub = analyseMicrostrip(stubWidth, board, 4e9);
+  const bare = tJunctionHammerstad(main, main, stub, board, 4e9);
+  return { bare, fitted: fittedJunction(bare, main, stub, board, fit), ratio: Math.log(main.z0 / stub.z0) };
+}
+const withRatio = { ...TEE_FIT, planeAPerLogZRatio: 0.3, n2DeficitPerLogZRatio: 0.5, susceptancePerLogZRatio: 0.8 };
+
+describe('fitted junction: impedance-ratio terms', () => {
+  it('TEE_FIT carries none, and zero terms give the same junction as none', () => {
+    expect(TEE_FIT.planeAPerLogZRatio ?? 0).toBe(0);
+    expect(junctionWith(0.6e-3, { ...TEE_FIT, planeAPerLogZRatio: 0, n2DeficitPerLogZRatio: 0, susceptancePerLogZRatio: 0 }).fitted).toEqual(junctionWith(0.6e-3, TEE_FIT).fitted);
+  });
+
+  it('a stub as wide as the line (ratio 0) is not moved by them', () => {
+    expect(junctionWith(1.2e-3, withRatio).fitted).toEqual(junctionWith(1.2e-3, TEE_FIT).fitted);
+  });
+
+  it('inside the extractions the plane and deficit follow the ratio linearly', () => {
+    const { bare, fitted, ratio } = junctionWith(0.6e-3, withRatio);
+    expect(ratio).toBeGreaterThan(FIT_LOG_Z_RATIO_RANGE[0]);
+    expect(ratio).toBeLessThan(0);
+    expect(fitted.da / bare.da).toBeCloseTo(TEE_FIT.planeA + 0.3 * ratio, 12);
+    expect((1 - fitted.n2a) / (1 - bare.n2a)).toBeCloseTo(TEE_FIT.n2Deficit + 0.5 * ratio, 9);
+  });
+
+  it('a stub narrower than the extractions is held at their ratio, not extrapolated', () => {
+    const { bare, fitted, ratio } = junctionWith(0.05e-3, withRatio);
+    expect(ratio).toBeLessThan(FIT_LOG_Z_RATIO_RANGE[0]);
+    expect(fitted.da / bare.da).toBeCloseTo(TEE_FIT.planeA + 0.3 * FIT_LOG_Z_RATIO_RANGE[0], 12);
   });
 });
