@@ -268,11 +268,16 @@ def run_one(args):
     out = {'seconds': seconds}
     for role, port in ports.items():
         f = plan['feeds'][role]
-        # V and I at the measurement plane, and the port line's measured β and impedance.
+        # V and I at the measurement plane, and the port line's measured β and impedance. openEMS
+        # puts the probes on the mesh line nearest the requested plane (port.measplane_shift is the
+        # snapped distance from the port's far end), so the shift is taken from there.
         port.CalcPort(sim_path, freq)
+        distance = abs(f['x_far'] - f['x_ref']) - port.measplane_shift
+        if abs(distance - measurement_distance(plan, role)) > 1e-9:
+            raise SystemExit(f'{role}: openEMS put the measurement plane {distance} mm from the copper, not where expected')
         alpha = feed_attenuation(np.real(port.beta), freq, plan['er'], plan['kappa'])
-        v, i = shift_along_line(port.uf_tot, port.if_tot, np.real(port.beta) - 1j * alpha, port.Z_ref, plan['meas'] * UNIT)
-        out[role] = {'v': v, 'i': i, 'beta': port.beta, 'zl': port.Z_ref, 'alpha': alpha}
+        v, i = shift_along_line(port.uf_tot, port.if_tot, np.real(port.beta) - 1j * alpha, port.Z_ref, distance * UNIT)
+        out[role] = {'v': v, 'i': i, 'beta': port.beta, 'zl': port.Z_ref, 'alpha': alpha, 'meas_m': distance * UNIT}
     out['freq'] = freq
     np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
     return out
@@ -298,6 +303,36 @@ def feed_attenuation(beta, freq, er, kappa):
         return np.zeros_like(beta)
     eps_eff = (beta / (2 * np.pi * freq / C0)) ** 2
     return Z0 * kappa * (eps_eff - 1) / (2 * np.sqrt(eps_eff) * (er - 1))
+
+
+def measurement_distance(plan, role):
+    """Distance (mm) from the copper's reference plane to the mesh line openEMS 0.0.35 measures on.
+
+    Its MSLPort (ports.py) moves the requested measurement plane to the nearest line of the mesh
+    along the feed, never the first or last; `plan['meas']` is only the requested distance. Up to
+    the eighth round the shift used the requested one, so each run's reference planes sat up to
+    half a feed cell off the copper's edge (ninth round, README).
+    """
+    f = plan['feeds'][role]
+    lines = np.array(plan['mesh']['x'])
+    toward_copper = 1 if f['x_ref'] > f['x_far'] else -1
+    requested = f['x_far'] + toward_copper * (abs(f['x_far'] - f['x_ref']) - plan['meas'])
+    k = min(max(int(np.argmin(np.abs(lines - requested))), 1), len(lines) - 2)
+    return float(abs(f['x_ref'] - lines[k]))
+
+
+def snap_saved_run(run, plan):
+    """A run saved before the ninth round (V and I moved the requested distance) moved on to the
+    reference plane from the snapped measurement plane: the rest of the way along the same line."""
+    for role in ('source', 'load'):
+        p = run[role]
+        if 'meas_m' in p:
+            continue
+        rest = (measurement_distance(plan, role) - plan['meas']) * UNIT
+        p['v'], p['i'] = shift_along_line(p['v'], p['i'], np.real(p['beta']) - 1j * p['alpha'], p['zl'], rest)
+        p['meas_m'] = measurement_distance(plan, role) * UNIT
+        run['snapped_after_run'] = True
+    return run
 
 
 def shift_along_line(v, i, gamma_beta, z0, length):
@@ -388,7 +423,7 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria
     plan = {**plan_model(design, refine, thick), 'end_criteria': end_criteria}
     tag = name + ('' if refine == 1.0 else f'-refine{refine:g}') + ('-thick' if thick else '')
     jobs = [(plan, role, os.path.join(work, tag, 'excite-' + role), threads) for role in ('source', 'load')]
-    runs = run_or_reuse(run_one, jobs, reuse)
+    runs = [snap_saved_run(r, plan) for r in run_or_reuse(run_one, jobs, reuse)]
     run_src, run_load = runs
     freq = run_src['freq']
     z = impedance_matrix(run_src, run_load)
@@ -436,7 +471,9 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria
         'fdtd_port_line_at_f0': port_line,
         'reciprocity_error': reciprocity,
         'end_criteria': end_criteria,
-        'deembedding': 'lossy feed (measured beta, dielectric attenuation)',
+        'deembedding': 'lossy feed (measured beta, dielectric attenuation) from the snapped measurement plane'
+                       + (' (saved run, moved on after it ran)' if any(r.get('snapped_after_run') for r in runs) else ''),
+        'measurement_plane_mm': {role: round(measurement_distance(plan, role), 5) for role in ('source', 'load')},
         'mesh': {
             'cells': [nx - 1, ny - 1, nz - 1],
             'max_cell_mm': plan['res'],
