@@ -32,6 +32,9 @@ export const substrateOfRecord = (d: DesignRecord): Substrate => ({
   conductivity: d.substrate.conductivity_s_per_m,
 });
 
+/** The design's stackup with the copper as simulate.py draws it: a lossless zero-thickness PEC sheet. */
+export const sheetOfRecord = (d: DesignRecord): Substrate => ({ ...substrateOfRecord(d), copper: 0, conductivity: 1e15, roughness: 0, tanDelta: 0 });
+
 /** The copper of the design as tunestrip's physical network takes it. */
 export function copperOfRecord(d: DesignRecord): MatchCopper {
   const line = (role: string): Line => lineOf(d, role);
@@ -51,14 +54,13 @@ export function copperOfRecord(d: DesignRecord): MatchCopper {
 export interface ModelMinimum { readonly f_min_hz: number; readonly offset_percent: number; readonly s11_db_at_f0: number }
 
 /**
- * The return-loss minimum of `copper` (default: the design's own) in tunestrip's physical network
- * with `models`, against the design's target: a grid over 0.7–1.3 f0 in steps of 0.01 % of f0.
+ * The return-loss minimum of `copper` (default: the design's own) on `substrate` (default: the
+ * design's stackup) in tunestrip's physical network with `models`, against the design's target: a grid over 0.7–1.3 f0 in steps of 0.01 % of f0.
  */
-export function modelMinimum(d: DesignRecord, models: NetworkModels, copper: MatchCopper = copperOfRecord(d)): ModelMinimum {
+export function modelMinimum(d: DesignRecord, models: NetworkModels, copper: MatchCopper = copperOfRecord(d), substrate: Substrate = substrateOfRecord(d)): ModelMinimum {
   const f0 = d.frequency_hz;
   const load = complex(d.load_ohm[0], d.load_ohm[1]);
   const target = complex(d.target_ohm[0], d.target_ohm[1]);
-  const substrate = substrateOfRecord(d);
   const gammaAt = (f: number): number => abs(mismatch(physicalInputImpedance(copper, load, substrate, f, models), target));
   let best = { f: f0, g: Infinity };
   for (let k = 0; k <= 6000; k += 1) {

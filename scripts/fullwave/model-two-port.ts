@@ -5,13 +5,13 @@
 //   npx tsx scripts/fullwave/model-two-port.ts OUT_DIR F_HZ [junction|openEnd|via]
 import { ALL_MODELS, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
 import { complex, div, mul, sqrt, sub, type Complex } from '../../src/math/complex.js';
-import { copperOfRecord, readDesignRecord, substrateOfRecord } from './design-record.js';
+import { copperOfRecord, readDesignRecord, sheetOfRecord } from './design-record.js';
 
 const [folder, frequencyText, without] = process.argv.slice(2);
 if (!folder || !frequencyText) throw new Error('usage: model-two-port.ts OUT_DIR F_HZ [junction|openEnd|via]');
 const d = readDesignRecord(folder);
 const f = Number(frequencyText);
-const sheet = { ...substrateOfRecord(d), copper: 0, conductivity: 1e15, roughness: 0, tanDelta: 0 };
+const sheet = sheetOfRecord(d);
 const isModel = (name: string): name is keyof NetworkModels => Object.keys(ALL_MODELS).includes(name);
 if (without !== undefined && !isModel(without)) throw new Error(`unknown model '${without}': one of ${Object.keys(ALL_MODELS).join(', ')}`);
 const models: NetworkModels = without ? { ...ALL_MODELS, [without]: false } : ALL_MODELS;

@@ -12,6 +12,7 @@ for spec in "$here"/specs/*.yaml; do
   node "$root/dist/cli/bin.js" design "$spec" --out "$work/designs/$name" --force > /dev/null
   /usr/bin/python3 "$here/simulate.py" "$work/designs/$name" --spec "$spec" --work "$work"
 done
-# One design again with the copper drawn as a solid of the stackup's thickness (README, Limits).
+# Three designs again with the copper drawn as a solid of the stackup's thickness (README, Limits).
 /usr/bin/python3 "$here/simulate.py" "$work/designs/fw-5g8-hc-open" --thick --spec "$here/specs/fw-5g8-hc-open.yaml" --work "$work"
 /usr/bin/python3 "$here/simulate.py" "$work/designs/fw-2g4-short-d400" --thick --spec "$here/specs/fw-2g4-short-d400.yaml" --work "$work"
+/usr/bin/python3 "$here/simulate.py" "$work/designs/fw-1g8-complex-target" --thick --spec "$here/specs/fw-1g8-complex-target.yaml" --work "$work"

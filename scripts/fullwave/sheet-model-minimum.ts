@@ -5,12 +5,12 @@
 // (ninth round, README). Diagnostic only; not part of tunestrip, not run by npm test.
 //
 //   npx tsx scripts/fullwave/sheet-model-minimum.ts OUT_DIR [--tee NAME ...] [--width-scale 0.99 ...]
-import { ALL_MODELS, mismatch, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
+import { ALL_MODELS, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
 import { TEE_FIT } from '../../src/physical/discontinuities/index.js';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { abs, complex } from '../../src/math/complex.js';
+import { complex } from '../../src/math/complex.js';
 import type { MatchCopper } from '../../src/seams.js';
-import { copperOfRecord, readDesignRecord, substrateOfRecord } from './design-record.js';
+import { copperOfRecord, modelMinimum, readDesignRecord, sheetOfRecord } from './design-record.js';
 import { fitJunction, junctionPoints, readJunctions } from './junction-fit.js';
 
 const args = process.argv.slice(2);
@@ -18,22 +18,15 @@ const folder = args[0];
 const valuesOf = (flag: string): string[] => args.flatMap((a, i) => (a === flag && args[i + 1] !== undefined ? [args[i + 1]!] : []));
 if (!folder || folder.startsWith('--')) throw new Error('usage: sheet-model-minimum.ts OUT_DIR [--tee NAME ...] [--width-scale S ...]');
 const d = readDesignRecord(folder);
-const sheet = { ...substrateOfRecord(d), copper: 0, conductivity: 1e15, roughness: 0, tanDelta: 0 };
+const sheet = sheetOfRecord(d);
 const load = complex(d.load_ohm[0], d.load_ohm[1]);
-const target = complex(d.target_ohm[0], d.target_ohm[1]);
 const f0 = d.frequency_hz;
 
 function report(label: string, copper: MatchCopper, models: NetworkModels): void {
-  const gamma = (f: number): number => abs(mismatch(physicalInputImpedance(copper, load, sheet, f, models), target));
-  let best = { f: f0, g: Infinity };
-  for (let k = 0; k <= 6000; k += 1) {
-    const f = f0 * (0.7 + (0.6 * k) / 6000);
-    const g = gamma(f);
-    if (g < best.g) best = { f, g };
-  }
+  const { offset_percent: offset } = modelMinimum(d, models, copper, sheet);
   const z = physicalInputImpedance(copper, load, sheet, f0, models);
   const line = analyseMicrostrip(copper.seriesWidth, sheet, f0);
-  console.log(`${label.padEnd(44)} minimum ${(100 * (best.f / f0 - 1)).toFixed(2).padStart(6)} %   Zin(f0) ${z.re.toFixed(2)}${z.im < 0 ? '-' : '+'}j${Math.abs(z.im).toFixed(2)} Ω   line ${line.z0.toFixed(2)} Ω`);
+  console.log(`${label.padEnd(44)} minimum ${offset.toFixed(2).padStart(6)} %   Zin(f0) ${z.re.toFixed(2)}${z.im < 0 ? '-' : '+'}j${Math.abs(z.im).toFixed(2)} Ω   line ${line.z0.toFixed(2)} Ω`);
 }
 
 const copper = copperOfRecord(d);

@@ -11,10 +11,11 @@
 // order, where a redesign with the candidate would land (it held to 0.12 % when TEE_FIT took these
 // terms; see the sixth round of README.md).
 //
-// With `--ratio` the candidate also fits susceptancePerLogZRatio (a junction capacitance that grows
-// with ln(Z_main/Z_stub); ninth round of README.md), starting from TEE_FIT.
+// With `--ratio=TERM,TERM` the candidate instead starts from TEE_FIT and also fits those
+// impedance-ratio terms of fittedJunction.ts (planeAPerLogZRatio, n2DeficitPerLogZRatio,
+// susceptancePerLogZRatio: linear in ln(Z_main/Z_stub); ninth round of README.md).
 //
-//   npx tsx scripts/fullwave/tee-permittivity.ts [--ratio] [OUT_DIR ...]
+//   npx tsx scripts/fullwave/tee-permittivity.ts [--ratio=TERM,TERM] [OUT_DIR ...]
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -26,7 +27,6 @@ import { fitJunction, fittedTees, junctionElements, junctionPoints, readJunction
 const data = readJunctions();
 const points = junctionPoints(fittedTees(data));
 // Least squares from TEE_FIT with zero permittivity terms (fitJunction fits them when they are given).
-// --ratio=TERM,TERM adds those impedance-ratio terms (planeAPerLogZRatio, n2DeficitPerLogZRatio, susceptancePerLogZRatio).
 const ratioArg = process.argv.find((a) => a.startsWith('--ratio='));
 const ratioTerms = ratioArg ? ratioArg.slice('--ratio='.length).split(',') : [];
 const { fit: candidate, rms: value } = fitJunction(

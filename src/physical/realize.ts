@@ -42,7 +42,8 @@ export const VIA_JUNCTION_CLEARANCE_WL = 0.15;
 /**
  * Seven of the eight crosses the cross model was fitted to have εr ≤ 4.4 (scripts/fullwave/
  * junctions.json); a balanced design on εr 10.2 landed 1.6 % low in a full-wave check (ninth round;
- * 0.9 % and 1.7 % in earlier runs with a misplaced reference plane or stopped too early). Balanced
+ * earlier rounds said 1.7 %, without the feed's attenuation in the shift, and 0.9 %, with the
+ * reference plane off the mesh line openEMS measured on). Balanced
  * designs above this εr get a note saying so.
  */
 export const BALANCED_CHECKED_ER = 4.5;

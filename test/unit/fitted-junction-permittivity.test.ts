@@ -56,7 +56,7 @@ const withRatio = { ...TEE_FIT, planeAPerLogZRatio: 0.3, n2DeficitPerLogZRatio: 
 
 describe('fitted junction: impedance-ratio terms', () => {
   it('TEE_FIT carries none, and zero terms give the same junction as none', () => {
-    expect(TEE_FIT.planeAPerLogZRatio ?? 0).toBe(0);
+    for (const term of ['planeAPerLogZRatio', 'n2DeficitPerLogZRatio', 'susceptancePerLogZRatio'] as const) expect(TEE_FIT[term] ?? 0).toBe(0);
     expect(junctionWith(0.6e-3, { ...TEE_FIT, planeAPerLogZRatio: 0, n2DeficitPerLogZRatio: 0, susceptancePerLogZRatio: 0 }).fitted).toEqual(junctionWith(0.6e-3, TEE_FIT).fitted);
   });
 
