@@ -176,6 +176,11 @@ export interface MatchCopper {
   /** 0 when the load is already matched (a plain line), 1 single stub, 2 balanced stubs. */
   readonly stubCount: 0 | 1 | 2;
   readonly vias?: { readonly drill: number; readonly pad: number; readonly count: number };
+  /**
+   * Mitred 90° bends of a folded stub: how many each stub turns through, and each bend's electrical
+   * length beyond its centre-line (m; negative: shorter). Absent for a straight stub.
+   */
+  readonly bends?: { readonly count: number; readonly lengthEach: number };
 }
 
 export interface PhysicalDesign {

@@ -6,8 +6,9 @@ Usage:
     /usr/bin/python3 scripts/fullwave/extract_junctions.py tee   [NAME ...] [--work DIR] [--reuse]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py open  [NAME ...] [--parallel 2]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py via   [NAME ...] [--work DIR] [--reuse]
+    /usr/bin/python3 scripts/fullwave/extract_junctions.py bend  [NAME ...] [--parallel 2] [--end-criteria 1e-6]
 
-Each case is one bare structure of our own choosing (the CROSSES, TEES, OPEN_ENDS and VIAS tables
+Each case is one bare structure of our own choosing (the CROSSES, TEES, OPEN_ENDS, VIAS and BENDS tables
 below). Widths come from tunestrip's own line synthesis (zero-thickness copper), through the built CLI in dist/.
 The results go into scripts/fullwave/junctions.json, one entry per case, keyed by name; the fit
 (scripts/fullwave/fit-junctions.ts) and the tests read that file and never run openEMS.
@@ -26,6 +27,15 @@ via: a straight 50 Ω line ending on the centre of one via, with a round pad aro
     ground to the copper. One run; the input impedance is moved to the via centre with the port
     line's measured β and impedance. Recorded: the impedance there, its inductance X/ω, and
     Goldfarb–Pucel's value for the same via.
+
+bend: a 90° bend of one line with its outer corner mitred as tunestrip draws a folded stub's
+    corners (Douville & James 1978: the cut meets each outer edge 2·M·w from the outer corner,
+    M = 0.52 + 0.65·exp(−1.35·w/h), written again here from physics.md §4.3). Arm 1 runs along −x,
+    arm 2 along +y, their centre-lines meet at the origin. One run, port 1 excited; the bend's mirror
+    symmetry about its diagonal gives the other column. Voltages and currents are moved to the
+    centre-line corner with each port line's measured β and impedance, so a bend as long
+    electrically as its centre-line would show S21 = 1 there. Recorded: S over 0.7–1.3 f0 and the
+    equivalent length −arg(S21)/β (negative: the bend is electrically shorter than its centre-line).
 
 The mesh, boundary, excitation and port rules are those of simulate.py (its README), at its
 recorded setting (`--refine 2`). Nothing here is part of tunestrip; it needs Debian's openems,
@@ -118,6 +128,19 @@ VIAS = [
     ('via-ptfe-254-d200-z80', 2.2, 0.254, 0.2, 0.45, 10.0, 80),
     ('via-fr4-1600-d400', 4.4, 1.6, 0.4, 0.8, 2.4, 50),
 ]
+# Mitred 90° bends: (name, εr, h mm, line Z0 Ω, f0 GHz). Tenth round: folded stubs landed high in
+# full-wave runs of whole designs; these measure how much shorter a mitred bend is than its centre-line.
+BENDS = [
+    ('bend-fr4-1600-z50-1g2', 4.4, 1.6, 50, 1.2),
+    ('bend-ptfe-787-z50-2g0', 2.2, 0.787, 50, 2.0),
+    ('bend-hc-508-z50-2g4', 3.66, 0.508, 50, 2.4),
+    ('bend-er10-635-z50-4g0', 10.2, 0.635, 50, 4.0),
+    ('bend-fr4-1600-z75-2g4', 4.4, 1.6, 75, 2.4),
+    ('bend-er3-760-z30-3g5', 3.0, 0.76, 30, 3.5),
+    ('bend-fr4-1600-z50-5g0', 4.4, 1.6, 50, 5.0),
+    ('bend-ptfe-787-z80-6g0', 2.2, 0.787, 80, 6.0),
+]
+
 # Cases kept out of the fit, run after it was made: they check the fitted model on a via or tee it
 # has not seen (junction-fit.ts fits only the cases recorded with "use": "fit").
 HELD_OUT = {'via-fr4-1600-d400', 'tee-hc-508-50-40-4g0'}
@@ -472,8 +495,115 @@ def extract_open(p, work, reuse):
     }
 
 
+# ---------------------------------------------------------------------------------------------
+# Mitred 90° bend
+
+
+def mitre_edge_cut(w, h):
+    """Douville & James (1978) optimum mitre as a cut 2·M·w from the outer corner along each outer edge (physics.md §4.3)."""
+    m = 0.52 + 0.65 * math.exp(-1.35 * w / h)
+    return 2 * m * w
+
+
+def plan_bend(case):
+    name, er, h, z0, f_ghz = case
+    f0 = f_ghz * 1e9
+    w = synthesize_width(er, h, z0, f_ghz)
+    a = mitre_edge_cut(w, h)
+    f_max = fw.BAND[1] * f0 * 1.25
+    res = C0 / (f_max * math.sqrt(er)) / fw.UNIT / fw.CELLS_PER_WAVELENGTH / REFINE
+    fine = min(w / fw.EDGE_CELLS_PER_WIDTH, h / 2) / REFINE
+    meas = max(6 * h, 3 * w, 4.0)
+    arm = w / 2 + 2 * meas + 2 * res     # each arm ends this far from the corner
+    margin = max(10 * h, 3 * w, 8.0)
+    air = max(12 * h, 8.0)
+    tol = fine / 4
+    inner = min(res, w / fw.CELLS_ACROSS_WIDTH / REFINE)
+    # Both axes alike (the bend is symmetric about its diagonal): edges at ±w/2 by the thirds rule,
+    # the mitre's end points, the arm's end; arm 1 runs to −arm in x, arm 2 to +arm in y.
+    edges = thirds(-w / 2, -1, fine) + thirds(w / 2, 1, fine) + [w / 2 - a, -w / 2 + a]
+    core_x = SmoothMeshLines(fw.merge(edges + [-arm], tol), inner, fw.GROWTH)
+    mesh_x = SmoothMeshLines(fw.merge(list(core_x), tol / 2) + [-arm - 3 * res, w / 2 + margin], res, fw.GROWTH)
+    core_y = SmoothMeshLines(fw.merge(edges + [arm], tol), inner, fw.GROWTH)
+    mesh_y = SmoothMeshLines(fw.merge(list(core_y), tol / 2) + [-w / 2 - margin, arm + 3 * res], res, fw.GROWTH)
+    z_sub = list(np.linspace(0, h, max(2, round(fw.SUBSTRATE_CELLS * REFINE)) + 1))
+    mesh_z = SmoothMeshLines(z_sub + [h + air], res, fw.GROWTH)
+    return {'name': name, 'er': er, 'h': h, 'f0': f0, 'z0': z0, 'w': w, 'cut': a, 'arm': arm, 'meas': meas, 'res': res, 'fine': fine,
+            'mesh': {ax: [float(v) for v in m] for ax, m in (('x', mesh_x), ('y', mesh_y), ('z', mesh_z))}}
+
+
+def run_bend(args):
+    p, sim_path = args
+    fdtd, csx = new_fdtd(p['f0'], p['mesh'])
+    mx, my = p['mesh']['x'], p['mesh']['y']
+    h, w, a, arm = p['h'], p['w'], p['cut'], p['arm']
+    csx.AddMaterial('substrate', epsilon=p['er']).AddBox([mx[0], my[0], 0], [mx[-1], my[-1], h], priority=0)
+    copper = csx.AddMetal('copper')
+    outline = [(-arm, -w / 2), (w / 2 - a, -w / 2), (w / 2, -w / 2 + a), (w / 2, arm), (-w / 2, arm), (-w / 2, w / 2), (-arm, w / 2)]
+    copper.AddPolygon([[x for x, _ in outline], [y for _, y in outline]], 'z', h, priority=10)
+    ports = {
+        1: (fdtd.AddMSLPort(1, copper, [-arm, -w / 2, h], [-w / 2, w / 2, 0], 'x', 'z', excite=1,
+                            MeasPlaneShift=arm - w / 2 - p['meas'], FeedShift=0, Feed_R=50, priority=10), arm),
+        2: (fdtd.AddMSLPort(2, copper, [-w / 2, arm, h], [w / 2, w / 2, 0], 'y', 'z', excite=0,
+                            MeasPlaneShift=arm - w / 2 - p['meas'], FeedShift=0, Feed_R=50, priority=10), arm),
+    }
+    seconds = run_fdtd(fdtd, csx, sim_path)
+    freq = np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS)
+    out = {'seconds': seconds, 'freq': freq}
+    for n, (port, to_corner) in ports.items():
+        port.CalcPort(sim_path, freq, ref_plane_shift=to_corner)
+        out[n] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
+    return out
+
+
+def extract_bend(p, work, reuse):
+    sim_path = os.path.join(work, p['name'])
+    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
+        run = np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
+    else:
+        run = run_bend((p, sim_path))
+    freq = run['freq']
+    n = len(freq)
+    # Column 2 (port 2 excited) is column 1 mirrored about the bend's diagonal.
+    z = np.zeros((n, 2, 2), complex)
+    for k in range(n):
+        v = np.array([[run[1]['v'][k], run[2]['v'][k]], [run[2]['v'][k], run[1]['v'][k]]])
+        i = np.array([[run[1]['i'][k], run[2]['i'][k]], [run[2]['i'][k], run[1]['i'][k]]])
+        z[k] = v @ np.linalg.inv(i)
+    zl = np.real(run[1]['zl'])
+    beta = np.real(run[1]['beta'])
+    s = np.array([np.linalg.inv(z[k] + zl[k] * np.eye(2)) @ (z[k] - zl[k] * np.eye(2)) for k in range(n)])
+    s21 = s[:, 1, 0]
+    length = -np.unwrap(np.angle(s21)) / beta  # beta in rad/m
+    k0 = n // 2
+    k_of = lambda f: 2 * math.pi * f / C0  # noqa: E731
+    return {
+        'name': p['name'],
+        'substrate': {'er': p['er'], 'height_m': p['h'] * 1e-3, 'copper_m': 0.0, 'tan_delta': 0.0},
+        'frequency_hz': p['f0'],
+        'line': {'z0_target_ohm': p['z0'], 'width_m': p['w'] * 1e-3},
+        'mitre_edge_cut_m': round(p['cut'] * 1e-3, 9),
+        'freq_hz': [float(f) for f in freq],
+        's11_re': np.real(s[:, 0, 0]).round(6).tolist(),
+        's11_im': np.imag(s[:, 0, 0]).round(6).tolist(),
+        's21_re': np.real(s21).round(6).tolist(),
+        's21_im': np.imag(s21).round(6).tolist(),
+        'equivalent_length_m': length.round(9).tolist(),
+        'equivalent_length_m_at_f0': round(float(length[k0]), 9),
+        'equivalent_length_per_width_at_f0': round(float(length[k0] / (p['w'] * 1e-3)), 5),
+        'fdtd_line_z_ohm_at_f0': round(float(zl[k0]), 4),
+        'fdtd_line_eps_eff_at_f0': round(float((beta[k0] / k_of(freq[k0])) ** 2), 5),
+        'reciprocity_error': round(float(np.max(np.abs(z[:, 0, 1] - z[:, 1, 0])) / np.max(np.abs(z))), 6),
+        'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
+                 'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+        'end_criteria': SETTINGS['end_criteria'],
+        'run_seconds': round(run['seconds'], 1),
+    }
+
+
 def save(kind, entry):
-    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'open_ends': [], 'vias': []}
+    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'open_ends': [], 'vias': [], 'bends': []}
     results = SETTINGS['results']
     if os.path.exists(results):
         with open(results, encoding='utf8') as f:
@@ -488,7 +618,7 @@ def save(kind, entry):
 
 def main():
     ap = argparse.ArgumentParser(description=__doc__.split('\n')[0])
-    ap.add_argument('kind', choices=['cross', 'tee', 'open', 'via'])
+    ap.add_argument('kind', choices=['cross', 'tee', 'open', 'via', 'bend'])
     ap.add_argument('names', nargs='*', help='cases to run (default: all of that kind)')
     ap.add_argument('--work', default='/tmp/fullwave-junctions')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
@@ -498,7 +628,7 @@ def main():
     ap.add_argument('--results', default=RESULTS, help='the JSON file the entries are written into')
     args = ap.parse_args()
     SETTINGS.update(end_criteria=args.end_criteria, results=os.path.abspath(args.results))
-    table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS}[args.kind]
+    table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS, 'bend': BENDS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
     if args.names and len(cases) != len(args.names):
         raise SystemExit('unknown case name; known: ' + ', '.join(c[0] for c in table))
@@ -507,10 +637,11 @@ def main():
             entry = extract_cross(plan_cross(c, 4 if args.kind == 'cross' else 3), args.work, args.reuse)
             save('crosses' if args.kind == 'cross' else 'tees', entry)
             print(json.dumps({k: entry[k] for k in ('name', 'reciprocity_error', 'symmetry_error', 'mesh', 'run_seconds')}), flush=True)
-    else:  # one-port cases: several side by side with --parallel
+    else:  # one-run cases: several side by side with --parallel
         plan, run, extract, key, shown = {
             'open': (plan_open, run_open, extract_open, 'open_ends', ('extension_m_at_f0',)),
             'via': (plan_via, run_via, extract_via, 'vias', ('inductance_nh_at_f0', 'goldfarb_pucel_nh', 'ratio_to_goldfarb_pucel_at_f0')),
+            'bend': (plan_bend, run_bend, extract_bend, 'bends', ('equivalent_length_m_at_f0', 'equivalent_length_per_width_at_f0')),
         }[args.kind]
         plans = [plan(c) for c in cases]
         if args.parallel > 1 and not args.reuse:

@@ -3,8 +3,8 @@
 // least-squares fit; each case's own elements; the open-end and via ratios. Diagnostic only.
 //
 //   npx tsx scripts/fullwave/fit-junctions.ts [junctions.json]
-import { CROSS_FIT, OPEN_END_FULLWAVE_SCALE, TEE_FIT, VIA_CROWDING_FIT, type JunctionFit } from '../../src/physical/discontinuities/index.js';
-import { fitOpenEndScale, fittedTees, openEndComparisons, caseElements, junctionElements, junctionPoints, fitJunction, fitViaCrowding, readJunctions, rmsError, viaComparisons, type JunctionPoint } from './junction-fit.js';
+import { BEND_LENGTH_FIT, CROSS_FIT, OPEN_END_FULLWAVE_SCALE, TEE_FIT, VIA_CROWDING_FIT, type JunctionFit } from '../../src/physical/discontinuities/index.js';
+import { bendComparisons, fitBendLength, fitOpenEndScale, fittedTees, openEndComparisons, caseElements, junctionElements, junctionPoints, fitJunction, fitViaCrowding, readJunctions, rmsError, viaComparisons, type JunctionPoint } from './junction-fit.js';
 
 const data = readJunctions(process.argv[2]);
 const fixed = (v: number, d: number): string => v.toFixed(d);
@@ -56,4 +56,9 @@ for (const v of viaComparisons(data.vias)) {
     `${v.name.padEnd(24)} ${v.use.padEnd(6)}h/d ${fixed(v.hOverD, 2).padStart(5)}  w/h ${fixed(v.wOverH, 2)}  measured ${fixed(v.measuredNh, 4)} nH  ` +
       `Goldfarb–Pucel ${fixed(v.goldfarbPucelNh, 4)} nH (${fixed(100 * (v.goldfarbPucelNh / v.measuredNh - 1), 1)} %)  design model ${fixed(v.designNh, 4)} nH (${fixed(100 * (v.designNh / v.measuredNh - 1), 1)} %)`,
   );
+}
+const bendFit = fitBendLength(data.bends);
+console.log(`\nmitred bends: Δl = a·w + b·h in src a ${BEND_LENGTH_FIT.perWidth}, b ${BEND_LENGTH_FIT.perHeight}; least squares a ${bendFit.perWidth.toFixed(4)}, b ${bendFit.perHeight.toFixed(4)}`);
+for (const b of bendComparisons(data.bends)) {
+  console.log(`${b.name.padEnd(26)} w/h ${fixed(b.aspect, 3)}  Δl/w measured ${fixed(b.measured / b.width, 4)}  model ${fixed(b.model / b.width, 4)} (${fixed((b.model - b.measured) / b.width, 4)} w)`);
 }

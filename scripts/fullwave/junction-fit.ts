@@ -14,7 +14,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { abs, add, complex, div, exp, mul, scale, sub, type Complex } from '../../src/math/complex.js';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { fittedJunction, openEndExtensionDesign, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type JunctionFit } from '../../src/physical/discontinuities/index.js';
+import { fittedJunction, mitredBendLength, openEndExtensionDesign, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type JunctionFit } from '../../src/physical/discontinuities/index.js';
 import type { LineProperties, Substrate } from '../../src/seams.js';
 
 export interface SubstrateRecord { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number }
@@ -59,12 +59,27 @@ export interface OpenEndRecord {
   readonly line: { readonly width_m: number };
   readonly extension_m_at_f0: number;
 }
+export interface BendRecord {
+  readonly name: string;
+  readonly substrate: SubstrateRecord;
+  readonly frequency_hz: number;
+  readonly line: { readonly z0_target_ohm: number; readonly width_m: number };
+  readonly mitre_edge_cut_m: number;
+  readonly freq_hz: readonly number[];
+  readonly s11_re: readonly number[];
+  readonly s11_im: readonly number[];
+  readonly s21_re: readonly number[];
+  readonly s21_im: readonly number[];
+  readonly equivalent_length_m: readonly number[];
+  readonly equivalent_length_m_at_f0: number;
+}
 export interface JunctionData {
   readonly solver: string;
   readonly crosses: readonly CrossRecord[];
   readonly tees: readonly TeeRecord[];
   readonly open_ends: readonly OpenEndRecord[];
   readonly vias: readonly ViaRecord[];
+  readonly bends: readonly BendRecord[];
 }
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -280,4 +295,38 @@ export function openEndComparisons(records: readonly OpenEndRecord[]): { name: s
     const line = analyseMicrostrip(r.line.width_m, substrate, r.frequency_hz);
     return { name: r.name, height: r.substrate.height_m, measured: r.extension_m_at_f0, kjk: openEndExtensionKJK(line, substrate), model: openEndExtensionDesign(line, substrate) };
   });
+}
+
+/**
+ * The two coefficients of mitredBendLength, Δl = a·w + b·h, minimising Σ(Δl_model/w − Δl/w)² over
+ * the extracted bends at f0 (linear least squares in a and b, closed form; regressor h/w).
+ */
+export function fitBendLength(records: readonly BendRecord[]): { perWidth: number; perHeight: number } {
+  let n = 0;
+  let sx = 0;
+  let sxx = 0;
+  let sy = 0;
+  let sxy = 0;
+  for (const r of records) {
+    const x = r.substrate.height_m / r.line.width_m;
+    const y = r.equivalent_length_m_at_f0 / r.line.width_m;
+    n += 1;
+    sx += x;
+    sxx += x * x;
+    sy += y;
+    sxy += x * y;
+  }
+  const det = n * sxx - sx * sx;
+  return { perWidth: (sxx * sy - sx * sxy) / det, perHeight: (n * sxy - sx * sy) / det };
+}
+
+/** Each extracted bend's equivalent length at f0 beside mitredBendLength for the same line. */
+export function bendComparisons(records: readonly BendRecord[]): { name: string; width: number; aspect: number; measured: number; model: number }[] {
+  return records.map((r) => ({
+    name: r.name,
+    width: r.line.width_m,
+    aspect: r.line.width_m / r.substrate.height_m,
+    measured: r.equivalent_length_m_at_f0,
+    model: mitredBendLength(r.line.width_m, r.substrate.height_m),
+  }));
 }

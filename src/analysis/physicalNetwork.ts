@@ -15,11 +15,13 @@ export interface NetworkModels {
   readonly openEnd: boolean;
   readonly via: boolean;
   readonly loss: boolean;
+  /** The mitred bends of a folded stub as a length offset (copper.bends). */
+  readonly bend: boolean;
   /** A junction correction to weigh instead of TEE_FIT / CROSS_FIT (diagnostics; the design never sets it). */
   readonly junctionFit?: JunctionFit;
 }
 
-export const ALL_MODELS: NetworkModels = { junction: true, openEnd: true, via: true, loss: true };
+export const ALL_MODELS: NetworkModels = { junction: true, openEnd: true, via: true, loss: true, bend: true };
 
 /** Plating thickness assumed in the via barrel for its resistance (common practice, no source: 25 µm). */
 const VIA_PLATING = 25e-6;
@@ -51,8 +53,10 @@ export function physicalAbcd(copper: MatchCopper, substrate: Substrate, frequenc
   const j: JunctionView = models.junction
     ? junctionAt(copper, substrate, frequency, models.junctionFit)
     : { da: 0, db: 0, d2: copper.seriesWidth / 2, n2a: 1, n2b: 1, susceptance: 0 };
-  // Stub: from the junction plane (d2 from the main-line centre) to its end.
-  const stubFromPlane = copper.stubLength + copper.seriesWidth / 2 - j.d2;
+  // Stub: from the junction plane (d2 from the main-line centre) to its end, its centre-line
+  // length through any bends corrected by each bend's own electrical length.
+  const bends = models.bend && copper.bends ? copper.bends.count * copper.bends.lengthEach : 0;
+  const stubFromPlane = copper.stubLength + copper.seriesWidth / 2 - j.d2 + bends;
   const yStub = stubAdmittance(copper, stubLine.z0, gammaStub, stubFromPlane, stubLine, substrate, frequency, models);
   const yShunt = add(scale(yStub, copper.stubCount), complex(0, j.susceptance));
   return cascade(

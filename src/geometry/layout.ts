@@ -18,7 +18,8 @@
 // corner is cut off along a line that meets each outer edge `mitreCut` from the outer corner
 // (Douville & James 1978, physics.md §4.3 [M]; the cut comes from mitreDouvilleJames). The stub's
 // length is its centre-line length through the bends, measured along the centre-lines to the points
-// where they meet (common practice, no source); the physical network uses the same length.
+// where they meet (common practice, no source); the physical network takes that length corrected
+// by each bend's own electrical length (mitredBendLength: a mitred bend is shorter than its centre-line).
 import type { BoardGeometry, CopperIsland, Feature, Point, Port, Region, Ring, Via } from '../seams.js';
 import { boundsOfRings, circlePolygon, normaliseRing, rectRing, ringBounds, snap } from './polygon.js';
 import { unionRings } from './union.js';

@@ -86,6 +86,7 @@ export function designRecord(input: DesignRecordInput): unknown {
       : null,
     layout: {
       fold: input.fold,
+      ...(physical.copper.bends ? { bends: { count: physical.copper.bends.count, length_each_m: physical.copper.bends.lengthEach } } : {}),
       stub_sides: physical.stubSides,
       placement: { x_m: spec.place.x, y_m: spec.place.y, rotation_deg: spec.place.rotationDeg, mirror: spec.place.mirror },
     },

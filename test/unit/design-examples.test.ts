@@ -30,7 +30,7 @@ describe.each(examples)('example %s', (file, text) => {
       stubLength: sec('stub').idealLength,
       leadLength: sec('lead-source').idealLength,
     };
-    const off = { junction: false, openEnd: false, via: false, loss: false };
+    const off = { junction: false, openEnd: false, via: false, loss: false, bend: false };
     const zin = physicalInputImpedance(copper, run.spec.load, run.spec.substrate, run.spec.frequency, off);
     expect(abs(mismatch(zin, run.spec.target))).toBeLessThan(1e-6);
   });

@@ -22,3 +22,21 @@ describe('README worked example', () => {
     for (const line of summary.trimEnd().split('\n')) expect(readme, 'README summary is stale: npm run docs').toContain(line);
   });
 });
+
+describe('README worked example prose', () => {
+  const run = designFromText(exampleSpecs()['receiver-5g8']!, repoPresets(), { version: pkg.version });
+  const readme = readFileSync(join(repoRoot, 'README.md'), 'utf8');
+
+  it('quotes the corrections the example makes (each figure in mm is one of its corrections, or the stub total)', () => {
+    const start = readme.indexOf('Of the four ideal branches');
+    const paragraph = readme.slice(start, readme.indexOf('![receiver-5g8 layout', start));
+    const quoted = [...paragraph.matchAll(/([0-9]+\.[0-9]+) mm/g)].map((m) => Number(m[1]));
+    expect(quoted.length).toBeGreaterThanOrEqual(5);
+    const stub = run.physical.sections.find((s) => s.role === 'stub')!;
+    const known = [
+      ...run.physical.sections.flatMap((s) => s.corrections.map((c) => Math.abs(c.delta) * 1e3)),
+      Math.abs(stub.length - stub.idealLength) * 1e3,
+    ];
+    for (const q of quoted) expect(known.some((k) => Math.abs(k - q) < 0.0006), `README quotes ${q} mm; the example's corrections are ${known.map((k) => k.toFixed(3)).join(', ')}`).toBe(true);
+  });
+});

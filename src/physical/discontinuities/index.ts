@@ -2,5 +2,5 @@
 export { openEndExtensionKJK, openEndExtensionDesign, openEndExtensionHB, OPEN_END_FULLWAVE_SCALE } from './openEnd.js';
 export { tJunctionHammerstad, type TJunction } from './tJunction.js';
 export { viaInductanceGoldfarbPucel, viaInductanceDesign, viaCrowdingBasis, viaResistance, VIA_CROWDING_FIT } from './via.js';
-export { mitreDouvilleJames } from './mitre.js';
+export { mitreDouvilleJames, mitredBendLength, BEND_LENGTH_FIT } from './mitre.js';
 export { fittedJunction, CROSS_FIT, TEE_FIT, FIT_REFERENCE_ER, FIT_ER_RANGE, FIT_LOG_Z_RATIO_RANGE, type JunctionFit } from './fittedJunction.js';

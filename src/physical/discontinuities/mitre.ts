@@ -16,3 +16,19 @@ export function mitreDouvilleJames(width: number, height: number): { readonly fr
   if (fraction > 1) warnings.push(diagnostic('model.out-of-range', 'mitre', `mitre fraction ${fraction.toPrecision(3)} exceeds 1: the cut passes the inner corner`));
   return { fraction, edgeCut: 2 * fraction * width, warnings };
 }
+
+/**
+ * Electrical length of one optimally mitred 90° bend beyond its centre-line length (m), measured
+ * between the points where the two arms' centre-lines meet: negative, since the current cuts the
+ * corner. Fitted to this project's own full-wave extractions of eight bare mitred bends (openEMS
+ * FDTD; scripts/fullwave/junctions.json "bends", made by `extract_junctions.py bend`, fitted by
+ * junction-fit.ts fitBendLength): Δl = a·w + b·h, least squares at f0 over w/h 0.89–5.2,
+ * εr 2.2–10.2. Within 0.032 w of every extraction but one at f·h = 8 GHz·mm (0.074 w), where the
+ * bend's length shrinks with frequency; elsewhere it changes by under 0.03 w over 0.7–1.3 f0, so
+ * the length is taken as frequency-independent.
+ */
+export const BEND_LENGTH_FIT = { perWidth: -0.3769, perHeight: -0.3449 } as const;
+
+export function mitredBendLength(width: number, height: number): number {
+  return BEND_LENGTH_FIT.perWidth * width + BEND_LENGTH_FIT.perHeight * height;
+}
