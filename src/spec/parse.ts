@@ -9,7 +9,7 @@ import { lineAt, readDocument, type SpecDocument } from './document.js';
 import { FAB_FIELDS, FAB_PRESET_FIELDS, LEAD_FIELDS, PLACE_FIELDS, SPEC_FIELDS, SUBSTRATE_FIELDS, SUBSTRATE_PRESET_FIELDS, SWEEP_FIELDS, TOLERANCE_FIELDS, typeText, type Field } from './fields.js';
 import { defaultValue, fabPresetSchema, issueWhere, specSchema, substratePresetSchema } from './schema.js';
 import { closest, suggestion } from './suggest.js';
-import { unknownKeys } from './unknown-keys.js';
+import { misplacedKey, unknownKeys } from './unknown-keys.js';
 
 export interface Presets {
   readonly substrates: Readonly<Record<string, string>>;
@@ -136,6 +136,12 @@ export function parseSpec(text: string, presets: Presets, sourceName = 'spec'): 
     );
   }
   const diagnostics: Diagnostic[] = unknownKeys(data, SPEC_FIELDS);
+  const misplaced = misplacedKey(data, SPEC_FIELDS);
+  if (misplaced) {
+    const [first] = misplaced.groups;
+    const message = `belongs in ${misplaced.groups.map((g) => `${g}:`).join(' or ')}, as ${first}: { ${misplaced.key}: … }; where it stands it would be ignored`;
+    withLine(doc, sourceName, () => fail('spec.invalid', misplaced.where, message));
+  }
   const values = validate(specSchema, data, doc, sourceName, '(root)');
   diagnostics.push(...bareFrequencies(data));
   const spec = withLine(doc, sourceName, () => resolve(values, presets, diagnostics));

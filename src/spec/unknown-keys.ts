@@ -48,3 +48,37 @@ function unknownKeysIn(value: unknown, fields: readonly Field[], prefix: string,
   }
   return out;
 }
+
+/**
+ * A key at the wrong level that a group field knows (e.g. `via_drill` at the top level, meant for
+ * `fab:`): where it was found and the group(s) it belongs in. Such a key is an error, not an
+ * ignored key: the user meant a setting, and ignoring it would draw copper to other rules.
+ * `preset` and `note` are left out: they belong in several groups and say nothing alone.
+ */
+export function misplacedKey(value: unknown, fields: readonly Field[], prefix = ''): { readonly where: string; readonly key: string; readonly groups: readonly string[] } | undefined {
+  if (!isRecord(value)) return undefined;
+  const groups = fields.filter((f) => f.type.kind === 'group');
+  for (const key of Object.keys(value)) {
+    const field = fields.find((f) => f.key === key);
+    if (field?.type.kind === 'group') {
+      const inner = misplacedKeyInGroup(value[key], field, groups, join(prefix, key));
+      if (inner) return inner;
+      continue;
+    }
+    if (field || key === 'preset' || key === 'note') continue;
+    const owners = groups.filter((g) => g.type.kind === 'group' && g.type.fields.some((f) => f.key === key)).map((g) => g.key);
+    if (owners.length > 0) return { where: join(prefix, key), key, groups: owners };
+  }
+  return undefined;
+}
+
+function misplacedKeyInGroup(value: unknown, group: Field, groups: readonly Field[], where: string) {
+  if (!isRecord(value) || group.type.kind !== 'group') return undefined;
+  const own = group.type.fields;
+  for (const key of Object.keys(value)) {
+    if (own.some((f) => f.key === key) || key === 'preset' || key === 'note') continue;
+    const owners = groups.filter((g) => g !== group && g.type.kind === 'group' && g.type.fields.some((f) => f.key === key)).map((g) => g.key);
+    if (owners.length > 0) return { where: join(where, key), key, groups: owners };
+  }
+  return undefined;
+}

@@ -170,6 +170,20 @@ describe('reading the file', () => {
     expect(byWhere['keepouts[0].radus']?.message).toContain('did you mean radius?');
     expect(byWhere.whatever?.message).toContain('allowed: name, frequency');
   });
+  it('refuses a key of a group written at the wrong level, naming the group it belongs in', () => {
+    // A fab rule or a substrate value where it would be ignored would draw copper to other rules.
+    const top = errorOf(() => parseSpec(`${minimal}via_drill: 0.4 mm\n`, presets, 'board.yaml'));
+    expect(top.diagnostic.code).toBe('spec.invalid');
+    expect(top.diagnostic.where).toBe('via_drill');
+    expect(top.message).toMatch(/^via_drill: belongs in fab:, as fab: \{ via_drill: … \}; where it stands it would be ignored \(board\.yaml:\d+\)$/);
+    const inGroup = errorOf(() => parseSpec(`${minimal}  min_trace: 0.2 mm\n`, presets));
+    expect(inGroup.diagnostic.where).toBe('substrate.min_trace');
+    expect(inGroup.message).toContain('belongs in fab:');
+    const er = errorOf(() => parseSpec(`${minimal}er: 3.0\n`, presets));
+    expect(er.message).toContain('belongs in substrate:');
+    // A plain typo stays a warning with a suggestion (above), and preset or note alone are left to it.
+    expect(parseSpec(`${minimal}preset: standard\n`, presets).diagnostics.map((d) => d.where)).toEqual(['preset']);
+  });
   it('names the file and line of a bad value', () => {
     const error = errorOf(() => parseSpec(minimal.replace('1.6 mm', '1.6 furlongs'), presets, 'board.yaml'));
     expect(error.message).toBe('substrate.height: "1.6 furlongs" is not a length; use mm, um, mil or m (e.g. 0.508 mm) (board.yaml:6)');
