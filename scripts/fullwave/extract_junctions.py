@@ -185,6 +185,24 @@ def run_fdtd(fdtd, csx, sim_path):
     return time.time() - t0
 
 
+def saved_or_run(run, p, work, reuse):
+    """The saved ports.npy of a one-run case in `work` (with --reuse), else a new run."""
+    sim_path = os.path.join(work, p['name'])
+    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
+        return np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
+    return run((p, sim_path))
+
+
+def calc_ports(ports, sim_path, freq, seconds):
+    """Each port's voltage, current, β and line impedance at `freq`, moved to its reference plane; saved beside the run."""
+    out = {'seconds': seconds, 'freq': freq}
+    for n, (port, to_plane) in ports.items():
+        port.CalcPort(sim_path, freq, ref_plane_shift=to_plane)
+        out[n] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
+    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
+    return out
+
+
 def new_fdtd(f0, mesh):
     fdtd = openEMS(EndCriteria=SETTINGS['end_criteria'], NrTS=2_000_000)
     fdtd.SetGaussExcite(f0, 0.6 * f0)
@@ -254,13 +272,7 @@ def run_cross(args):
     copper.AddBox([-ws / 2, -ay if p['arms'] == 4 else 0, h], [ws / 2, ay, h], priority=10)
     ports = cross_ports(fdtd, copper, p, excite)
     seconds = run_fdtd(fdtd, csx, sim_path)
-    freq = np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS)
-    out = {'seconds': seconds, 'freq': freq}
-    for n, (port, to_centre) in ports.items():
-        port.CalcPort(sim_path, freq, ref_plane_shift=to_centre)
-        out[n] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
-    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
-    return out
+    return calc_ports(ports, sim_path, np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS), seconds)
 
 
 def cross_matrices(run1, run3, arms=4):
@@ -387,11 +399,7 @@ def run_via(args):
 
 
 def extract_via(p, work, reuse):
-    sim_path = os.path.join(work, p['name'])
-    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
-        run = np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
-    else:
-        run = run_via((p, sim_path))
+    run = saved_or_run(run_via, p, work, reuse)
     freq = run['freq']
     z = run['v'] / run['i']
     inductance = np.imag(z) / (2 * math.pi * freq)
@@ -467,11 +475,7 @@ def run_open(args):
 
 
 def extract_open(p, work, reuse):
-    sim_path = os.path.join(work, p['name'])
-    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
-        run = np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
-    else:
-        run = run_open((p, sim_path))
+    run = saved_or_run(run_open, p, work, reuse)
     freq = run['freq']
     y = run['i'] / run['v']
     # The end's capacitance as a line extension: tan(β·Δl) = B·Z (the port line's own β and Z).
@@ -548,21 +552,11 @@ def run_bend(args):
                             MeasPlaneShift=arm - w / 2 - p['meas'], FeedShift=0, Feed_R=50, priority=10), arm),
     }
     seconds = run_fdtd(fdtd, csx, sim_path)
-    freq = np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS)
-    out = {'seconds': seconds, 'freq': freq}
-    for n, (port, to_corner) in ports.items():
-        port.CalcPort(sim_path, freq, ref_plane_shift=to_corner)
-        out[n] = {'v': port.uf_tot, 'i': port.if_tot, 'beta': port.beta, 'zl': port.Z_ref}
-    np.save(os.path.join(sim_path, 'ports.npy'), out, allow_pickle=True)
-    return out
+    return calc_ports(ports, sim_path, np.linspace(FIT_BAND[0] * p['f0'], FIT_BAND[1] * p['f0'], FIT_POINTS), seconds)
 
 
 def extract_bend(p, work, reuse):
-    sim_path = os.path.join(work, p['name'])
-    if reuse and os.path.exists(os.path.join(sim_path, 'ports.npy')):
-        run = np.load(os.path.join(sim_path, 'ports.npy'), allow_pickle=True).item()
-    else:
-        run = run_bend((p, sim_path))
+    run = saved_or_run(run_bend, p, work, reuse)
     freq = run['freq']
     n = len(freq)
     # Column 2 (port 2 excited) is column 1 mirrored about the bend's diagonal.

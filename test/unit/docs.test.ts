@@ -7,6 +7,7 @@ import { designFromText } from '../../src/design.js';
 import { designSummary } from '../../src/cli/print.js';
 import { exampleSpecs, repoPresets, repoRoot } from '../helpers/templates.js';
 import pkg from '../../package.json' with { type: 'json' };
+import { BEND_LENGTH_FIT } from '../../src/physical/discontinuities/index.js';
 
 describe('README worked example', () => {
   const run = designFromText(exampleSpecs()['receiver-5g8']!, repoPresets(), { version: pkg.version });
@@ -38,5 +39,15 @@ describe('README worked example prose', () => {
       Math.abs(stub.length - stub.idealLength) * 1e3,
     ];
     for (const q of quoted) expect(known.some((k) => Math.abs(k - q) < 0.0006), `README quotes ${q} mm; the example's corrections are ${known.map((k) => k.toFixed(3)).join(', ')}`).toBe(true);
+  });
+});
+
+describe('README model figures', () => {
+  const readme = readFileSync(join(repoRoot, 'README.md'), 'utf8');
+  it('quotes the mitred-bend length fit in src, to three digits', () => {
+    const quoted = /Δl = −([0-9.]+)·w − ([0-9.]+)·h per bend/.exec(readme);
+    expect(quoted, 'README no longer quotes the bend fit').not.toBeNull();
+    expect(-Number(quoted![1])).toBeCloseTo(BEND_LENGTH_FIT.perWidth, 3);
+    expect(-Number(quoted![2])).toBeCloseTo(BEND_LENGTH_FIT.perHeight, 3);
   });
 });
