@@ -112,7 +112,7 @@ export function layoutInputOf(spec: Spec, physical: PhysicalDesign, fold: Fold =
     stubLength: c.stubLength,
     stubSides: physical.stubSides,
     termination: c.termination,
-    ...(c.vias ? { via: { drill: c.vias.drill, pad: c.vias.pad, count: c.vias.count, pitch: viaPitch(spec) } } : {}),
+    ...(c.vias ? { via: { drill: c.vias.drill, pad: c.vias.pad, count: c.vias.count, pitch: c.vias.pitch } } : {}),
     ...(folded ? { fold: folded } : {}),
     ...(spec.area ? { area: spec.area } : {}),
     keepouts: spec.keepouts,
@@ -149,5 +149,3 @@ function withBends(spec: Spec, physical: PhysicalDesign, fold: Exclude<Fold, 'st
   return { ...physical, copper, sections, s11DbAtF0: db(abs(mismatch(zin, spec.target))) };
 }
 
-/** Vias in a row sit one pad plus the minimum space apart (common practice, no source). */
-const viaPitch = (spec: Spec): number => spec.fab.viaPad + spec.fab.minSpace;

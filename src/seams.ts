@@ -159,6 +159,8 @@ export interface ViaSpec {
   readonly drill: number;
   readonly pad: number;
   readonly count: number;
+  /** Centre-to-centre distance of the vias in a row (m). */
+  readonly pitch: number;
   readonly inductance: number;
 }
 
@@ -175,7 +177,8 @@ export interface MatchCopper {
   readonly termination: Termination;
   /** 0 when the load is already matched (a plain line), 1 single stub, 2 balanced stubs. */
   readonly stubCount: 0 | 1 | 2;
-  readonly vias?: { readonly drill: number; readonly pad: number; readonly count: number };
+  /** Ground vias at each short stub's end: a row of `count`, `pitch` apart centre to centre. */
+  readonly vias?: { readonly drill: number; readonly pad: number; readonly count: number; readonly pitch: number };
   /**
    * Mitred 90° bends of a folded stub: how many each stub turns through, and each bend's electrical
    * length beyond its centre-line (m; negative: shorter). Absent for a straight stub.

@@ -16,7 +16,7 @@ export interface DesignRecord {
   readonly substrate: { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number; readonly roughness_m: number; readonly conductivity_s_per_m: number };
   readonly solution: { readonly termination: 'open' | 'short'; readonly style: string };
   readonly lines: readonly Line[];
-  readonly vias: readonly { readonly drill_m: number; readonly pad_m: number }[];
+  readonly vias: readonly { readonly x_m: number; readonly y_m: number; readonly drill_m: number; readonly pad_m: number }[];
 }
 
 export const readDesignRecord = (folder: string): DesignRecord => JSON.parse(readFileSync(join(folder, 'design.json'), 'utf8')) as DesignRecord;
@@ -35,6 +35,13 @@ export const substrateOfRecord = (d: DesignRecord): Substrate => ({
 /** The design's stackup with the copper as simulate.py draws it: a lossless zero-thickness PEC sheet. */
 export const sheetOfRecord = (d: DesignRecord): Substrate => ({ ...substrateOfRecord(d), copper: 0, conductivity: 1e15, roughness: 0, tanDelta: 0 });
 
+/** Centre-to-centre distance of the first stub's first two vias (0 for one via per stub). */
+function viaRowPitch(d: DesignRecord): number {
+  const perStub = d.vias.length / (d.solution.style === 'balanced' ? 2 : 1);
+  const [a, b] = d.vias;
+  return perStub > 1 && a && b ? Math.hypot(b.x_m - a.x_m, b.y_m - a.y_m) : 0;
+}
+
 /** The copper of the design as tunestrip's physical network takes it. */
 export function copperOfRecord(d: DesignRecord): MatchCopper {
   const line = (role: string): Line => lineOf(d, role);
@@ -47,7 +54,7 @@ export function copperOfRecord(d: DesignRecord): MatchCopper {
     leadLength: line('lead').length_m,
     termination: d.solution.termination,
     stubCount,
-    ...(d.solution.termination === 'short' && d.vias[0] ? { vias: { drill: d.vias[0].drill_m, pad: d.vias[0].pad_m, count: d.vias.length / stubCount } } : {}),
+    ...(d.solution.termination === 'short' && d.vias[0] ? { vias: { drill: d.vias[0].drill_m, pad: d.vias[0].pad_m, count: d.vias.length / stubCount, pitch: viaRowPitch(d) } } : {}),
   };
 }
 

@@ -7,6 +7,7 @@ Usage:
     /usr/bin/python3 scripts/fullwave/extract_junctions.py open  [NAME ...] [--parallel 2]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py via   [NAME ...] [--work DIR] [--reuse]
     /usr/bin/python3 scripts/fullwave/extract_junctions.py bend  [NAME ...] [--parallel 2] [--end-criteria 1e-6]
+    /usr/bin/python3 scripts/fullwave/extract_junctions.py via-row [NAME ...] [--parallel 2] [--end-criteria 1e-6]
 
 Each case is one bare structure of our own choosing (the CROSSES, TEES, OPEN_ENDS, VIAS and BENDS tables
 below). Widths come from tunestrip's own line synthesis (zero-thickness copper), through the built CLI in dist/.
@@ -139,6 +140,20 @@ BENDS = [
     ('bend-er3-760-z30-3g5', 3.0, 0.76, 30, 3.5),
     ('bend-fr4-1600-z50-5g0', 4.4, 1.6, 50, 5.0),
     ('bend-ptfe-787-z80-6g0', 2.2, 0.787, 80, 6.0),
+]
+
+# Rows of vias at a line's end, as tunestrip draws `fab.vias_per_stub` > 1: (name, εr, h mm, drill mm,
+# pad mm, f0 GHz, line Z0 Ω, count, pitch mm); pitch = pad + min space of the fab preset. Tenth
+# round: a check of the row's inductance, where the design model ignores the vias' mutual inductance.
+VIA_ROWS = [
+    ('via2-fr4-1600-d200-p550', 4.4, 1.6, 0.2, 0.45, 2.4, 50, 2, 0.55),
+    ('via2-ptfe-787-d200-p550', 2.2, 0.787, 0.2, 0.45, 10.0, 50, 2, 0.55),
+    ('via2-er3-760-d300-p750', 3.0, 0.76, 0.3, 0.6, 3.5, 50, 2, 0.75),
+    ('via2-hc-508-d200-p550', 3.66, 0.508, 0.2, 0.45, 5.8, 50, 2, 0.55),
+    ('via3-fr4-1600-d300-p750', 4.4, 1.6, 0.3, 0.6, 2.4, 50, 3, 0.75),
+    ('via4-ptfe-787-d200-p550', 2.2, 0.787, 0.2, 0.45, 6.0, 50, 4, 0.55),
+    ('via2-er10-635-d200-p550', 10.2, 0.635, 0.2, 0.45, 4.0, 50, 2, 0.55),
+    ('via3-hc-508-d200-p550', 3.66, 0.508, 0.2, 0.45, 5.8, 50, 3, 0.55),
 ]
 
 # Cases kept out of the fit, run after it was made: they check the fitted model on a via or tee it
@@ -344,7 +359,8 @@ def extract_cross(p, work, reuse):
 
 
 def plan_via(case):
-    name, er, h, drill, pad, f_ghz, z0 = case
+    name, er, h, drill, pad, f_ghz, z0, *row = case
+    count, pitch = (row + [1, 0.0])[:2] if row else (1, 0.0)
     f0 = f_ghz * 1e9
     w = synthesize_width(er, h, z0, f_ghz)
     f_max = fw.BAND[1] * f0 * 1.25
@@ -360,9 +376,12 @@ def plan_via(case):
     step = r / via_cells
     tol = min(fine / 4, step / 2)
     via_lines = list(step * np.arange(-via_cells, via_cells + 1))
+    centres = [(k - (count - 1) / 2) * pitch for k in range(count)]   # across the line, as tunestrip draws a row
+    span = (count - 1) * pitch
     xs = [v for v in thirds(pad / 2, 1, fine) if v > r + step / 2] + via_lines + [x_far]
-    ys_pos = [v for v in thirds(w / 2, 1, fine) + thirds(pad / 2, 1, fine) if v > r + step / 2]
-    ys = ys_pos + [-v for v in ys_pos] + via_lines
+    edges = thirds(w / 2, 1, fine) + [c + e for c in centres for e in thirds(pad / 2, 1, fine)] + ([span / 2 + pad / 2] if span > w else [])
+    ys_pos = [v for v in edges if v > 0 and all(abs(v - c) > r + step / 2 for c in centres)]
+    ys = ys_pos + [-v for v in ys_pos] + [c + v for c in centres for v in via_lines]
     inner = min(res, w / fw.CELLS_ACROSS_WIDTH / REFINE, pad / 4)
     core_x = SmoothMeshLines(fw.merge(xs, tol), inner, fw.GROWTH)
     mesh_x = SmoothMeshLines(fw.merge(list(core_x), tol / 2) + [x_far - 3 * res, pad / 2 + margin], res, fw.GROWTH)
@@ -371,6 +390,7 @@ def plan_via(case):
     z_sub = list(np.linspace(0, h, max(2, round(fw.SUBSTRATE_CELLS * REFINE)) + 1))
     mesh_z = SmoothMeshLines(z_sub + [h + air], res, fw.GROWTH)
     return {'name': name, 'er': er, 'h': h, 'f0': f0, 'z0': z0, 'w': w, 'drill': drill, 'pad': pad, 'x_far': x_far,
+            'count': count, 'pitch': pitch, 'centres': centres,
             'meas': meas, 'res': res, 'fine': fine,
             'mesh': {a: [float(v) for v in m] for a, m in (('x', mesh_x), ('y', mesh_y), ('z', mesh_z))}}
 
@@ -383,10 +403,15 @@ def run_via(args):
     csx.AddMaterial('substrate', epsilon=p['er']).AddBox([mx[0], my[0], 0], [mx[-1], my[-1], h], priority=0)
     copper = csx.AddMetal('copper')
     copper.AddBox([p['x_far'], -w / 2, h], [0, w / 2, h], priority=10)
-    # the pad as tunestrip draws it: a polygon of 32 sides on the via centre
+    # each pad as tunestrip draws it: a polygon of 32 sides on the via centre; a row wider than the
+    # line gets tunestrip's bar behind the via centres, one pad radius deep
     angles = 2 * math.pi * np.arange(32) / 32
-    copper.AddPolygon(np.array([p['pad'] / 2 * np.cos(angles), p['pad'] / 2 * np.sin(angles)]), 'z', h, priority=10)
-    copper.AddCylinder([0, 0, 0], [0, 0, h], p['drill'] / 2, priority=10)
+    span = (p['count'] - 1) * p['pitch']
+    if span > w:
+        copper.AddBox([-p['pad'] / 2, -span / 2, h], [0, span / 2, h], priority=10)
+    for c in p['centres']:
+        copper.AddPolygon(np.array([p['pad'] / 2 * np.cos(angles), c + p['pad'] / 2 * np.sin(angles)]), 'z', h, priority=10)
+        copper.AddCylinder([0, c, 0], [0, c, h], p['drill'] / 2, priority=10)
     arm = abs(p['x_far']) - p['pad'] / 2
     port = fdtd.AddMSLPort(1, copper, [p['x_far'], -w / 2, h], [p['x_far'] + arm, w / 2, 0], 'x', 'z', excite=1,
                            MeasPlaneShift=arm - p['meas'], FeedShift=0, Feed_R=50, priority=10)
@@ -407,11 +432,11 @@ def extract_via(p, work, reuse):
     gp = goldfarb_pucel_nh(p['h'], p['drill'])
     return {
         'name': p['name'],
-        'use': 'check' if p['name'] in HELD_OUT else 'fit',
+        **({'use': 'check' if p['name'] in HELD_OUT else 'fit'} if p['count'] == 1 else {}),
         'substrate': {'er': p['er'], 'height_m': p['h'] * 1e-3, 'copper_m': 0.0, 'tan_delta': 0.0},
         'frequency_hz': p['f0'],
         'line': {'z0_target_ohm': p['z0'], 'width_m': p['w'] * 1e-3},
-        'via': {'drill_m': p['drill'] * 1e-3, 'pad_m': p['pad'] * 1e-3},
+        'via': {'drill_m': p['drill'] * 1e-3, 'pad_m': p['pad'] * 1e-3, **({'count': p['count'], 'pitch_m': round(p['pitch'] * 1e-3, 9)} if p['count'] > 1 else {})},
         'freq_hz': [float(f) for f in freq],
         'z_re_ohm': np.real(z).round(5).tolist(),
         'z_im_ohm': np.imag(z).round(5).tolist(),
@@ -597,7 +622,7 @@ def extract_bend(p, work, reuse):
 
 
 def save(kind, entry):
-    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'open_ends': [], 'vias': [], 'bends': []}
+    data = {'solver': fw.openems_version(), 'crosses': [], 'tees': [], 'open_ends': [], 'vias': [], 'bends': [], 'via_rows': []}
     results = SETTINGS['results']
     if os.path.exists(results):
         with open(results, encoding='utf8') as f:
@@ -612,7 +637,7 @@ def save(kind, entry):
 
 def main():
     ap = argparse.ArgumentParser(description=__doc__.split('\n')[0])
-    ap.add_argument('kind', choices=['cross', 'tee', 'open', 'via', 'bend'])
+    ap.add_argument('kind', choices=['cross', 'tee', 'open', 'via', 'via-row', 'bend'])
     ap.add_argument('names', nargs='*', help='cases to run (default: all of that kind)')
     ap.add_argument('--work', default='/tmp/fullwave-junctions')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
@@ -622,7 +647,7 @@ def main():
     ap.add_argument('--results', default=RESULTS, help='the JSON file the entries are written into')
     args = ap.parse_args()
     SETTINGS.update(end_criteria=args.end_criteria, results=os.path.abspath(args.results))
-    table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS, 'bend': BENDS}[args.kind]
+    table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS, 'via-row': VIA_ROWS, 'bend': BENDS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
     if args.names and len(cases) != len(args.names):
         raise SystemExit('unknown case name; known: ' + ', '.join(c[0] for c in table))
@@ -635,6 +660,7 @@ def main():
         plan, run, extract, key, shown = {
             'open': (plan_open, run_open, extract_open, 'open_ends', ('extension_m_at_f0',)),
             'via': (plan_via, run_via, extract_via, 'vias', ('inductance_nh_at_f0', 'goldfarb_pucel_nh', 'ratio_to_goldfarb_pucel_at_f0')),
+            'via-row': (plan_via, run_via, extract_via, 'via_rows', ('inductance_nh_at_f0', 'goldfarb_pucel_nh')),
             'bend': (plan_bend, run_bend, extract_bend, 'bends', ('equivalent_length_m_at_f0', 'equivalent_length_per_width_at_f0')),
         }[args.kind]
         plans = [plan(c) for c in cases]

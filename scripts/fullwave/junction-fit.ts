@@ -14,7 +14,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { abs, add, complex, div, exp, mul, scale, sub, type Complex } from '../../src/math/complex.js';
 import { analyseMicrostrip } from '../../src/physical/microstrip/index.js';
-import { fittedJunction, mitredBendLength, openEndExtensionDesign, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type JunctionFit } from '../../src/physical/discontinuities/index.js';
+import { fittedJunction, mitredBendLength, mutualInductanceGrover, openEndExtensionDesign, openEndExtensionKJK, tJunctionHammerstad, viaCrowdingBasis, viaInductanceDesign, viaInductanceGoldfarbPucel, type JunctionFit } from '../../src/physical/discontinuities/index.js';
 import type { LineProperties, Substrate } from '../../src/seams.js';
 
 export interface SubstrateRecord { readonly er: number; readonly height_m: number; readonly copper_m: number; readonly tan_delta: number }
@@ -38,6 +38,17 @@ export interface ViaRecord {
   readonly frequency_hz: number;
   readonly line: { readonly width_m: number };
   readonly via: { readonly drill_m: number; readonly pad_m: number };
+  readonly freq_hz: readonly number[];
+  readonly inductance_nh: readonly number[];
+  readonly inductance_nh_at_f0: number;
+}
+/** A row of vias at a line's end (`extract_junctions.py via-row`): the same fields, the row's count and pitch. */
+export interface ViaRowRecord {
+  readonly name: string;
+  readonly substrate: SubstrateRecord;
+  readonly frequency_hz: number;
+  readonly line: { readonly width_m: number };
+  readonly via: { readonly drill_m: number; readonly pad_m: number; readonly count: number; readonly pitch_m: number };
   readonly freq_hz: readonly number[];
   readonly inductance_nh: readonly number[];
   readonly inductance_nh_at_f0: number;
@@ -80,6 +91,7 @@ export interface JunctionData {
   readonly open_ends: readonly OpenEndRecord[];
   readonly vias: readonly ViaRecord[];
   readonly bends: readonly BendRecord[];
+  readonly via_rows: readonly ViaRowRecord[];
 }
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -328,5 +340,40 @@ export function bendComparisons(records: readonly BendRecord[]): { name: string;
     aspect: r.line.width_m / r.substrate.height_m,
     measured: r.equivalent_length_m_at_f0,
     model: mitredBendLength(r.line.width_m, r.substrate.height_m),
+  }));
+}
+
+/** A row's own part (each via's inductance over n) and its mutual part per unit scale (Σ_i≠j Grover / n²), in H. */
+function viaRowParts(r: ViaRowRecord): { own: number; mutual: number } {
+  const { count, pitch_m: pitch } = r.via;
+  const h = r.substrate.height_m;
+  const one = viaInductanceDesign(h, r.via.drill_m, r.via.pad_m, r.line.width_m / count);
+  let mutual = 0;
+  for (let i = 0; i < count; i += 1) for (let j = 0; j < count; j += 1) if (i !== j) mutual += mutualInductanceGrover(h, Math.abs(i - j) * pitch);
+  // viaInductanceDesign with count 1 on the via's share of the strip is that via's own inductance.
+  return { own: one / count, mutual: mutual / (count * count) };
+}
+
+/** The scale k on Grover's mutual inductance minimising Σ((own + k·mutual)/measured − 1)² over the extracted rows (closed form). */
+export function fitViaRowMutual(records: readonly ViaRowRecord[]): number {
+  let num = 0;
+  let den = 0;
+  for (const r of records) {
+    const measured = r.inductance_nh_at_f0 * 1e-9;
+    const { own, mutual } = viaRowParts(r);
+    num += (mutual / measured) * (1 - own / measured);
+    den += (mutual / measured) ** 2;
+  }
+  return num / den;
+}
+
+/** Each extracted row beside tunestrip's design model (src/) and the same model without mutual inductance. */
+export function viaRowComparisons(records: readonly ViaRowRecord[]): { name: string; count: number; measuredNh: number; designNh: number; noMutualNh: number }[] {
+  return records.map((r) => ({
+    name: r.name,
+    count: r.via.count,
+    measuredNh: r.inductance_nh_at_f0,
+    designNh: viaInductanceDesign(r.substrate.height_m, r.via.drill_m, r.via.pad_m, r.line.width_m, r.via.count, r.via.pitch_m) * 1e9,
+    noMutualNh: viaRowParts(r).own * 1e9,
   }));
 }

@@ -101,12 +101,12 @@ function stubAdmittance(
 
 /** Impedance of a stub's end on `count` vias in parallel (Goldfarb–Pucel 1991 with the fitted strip-to-pad crowding; mutual coupling ignored). */
 export function viaImpedance(
-  vias: { readonly drill: number; readonly pad: number; readonly count: number },
+  vias: NonNullable<MatchCopper['vias']>,
   stubWidth: number,
   substrate: Substrate,
   frequency: number,
 ): Complex {
-  const l = viaInductanceDesign(substrate.height, vias.drill, vias.pad, stubWidth, vias.count);
+  const l = viaInductanceDesign(substrate.height, vias.drill, vias.pad, stubWidth, vias.count, vias.pitch);
   const r = viaResistance(substrate.height, vias.drill, VIA_PLATING, substrate.conductivity, frequency) / vias.count;
   return complex(r, 2 * Math.PI * frequency * l);
 }

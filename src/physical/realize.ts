@@ -26,7 +26,7 @@ import { mm, trimmed } from '../format.js';
 export const MODEL_NAMES = {
   junction: 'T-junction reference planes (Hammerstad 1981, corrected to full-wave runs)',
   openEnd: 'open-end extension (Kirschning-Jansen-Koster 1981, scaled to full-wave runs)',
-  via: 'via inductance (Goldfarb-Pucel 1991 plus strip-to-pad crowding fitted to full-wave runs)',
+  via: 'via inductance (Goldfarb-Pucel 1991 plus strip-to-pad crowding and, for a row of vias, Grover mutual inductance, fitted to full-wave runs)',
   halfWave: 'half wavelength added to keep the copper buildable',
   bend: 'mitred bends of the folded stub (Douville-James 1978 mitre, length fitted to full-wave runs)',
   refine: 'solve on the physical network (junction ratio and susceptance, dispersion, loss)',
@@ -203,12 +203,16 @@ export function realize(spec: Spec, lines: SizedLines, plan: JunctionPlan, ideal
   return all[0]!;
 }
 
+/** Vias in a row sit one pad plus the minimum space apart (common practice, no source). */
+export const viaPitch = (spec: Spec): number => spec.fab.viaPad + spec.fab.minSpace;
+
 function viaOf(spec: Spec, stubWidth: number): ViaSpec {
   return {
     drill: spec.fab.viaDrill,
     pad: spec.fab.viaPad,
     count: spec.fab.viasPerStub,
-    inductance: viaInductanceDesign(spec.substrate.height, spec.fab.viaDrill, spec.fab.viaPad, stubWidth, spec.fab.viasPerStub),
+    pitch: viaPitch(spec),
+    inductance: viaInductanceDesign(spec.substrate.height, spec.fab.viaDrill, spec.fab.viaPad, stubWidth, spec.fab.viasPerStub, viaPitch(spec)),
   };
 }
 
@@ -263,7 +267,7 @@ function realizeBranch(
     notes.push(diagnostic('design.note', 'style', `the cross model of balanced stubs rests mostly on εr ≤ 4.4; a full-wave check on εr 10.2 landed 1.6 % low: check this design by full-wave simulation`));
   }
 
-  const vias = solution.termination === 'short' && via ? { drill: via.drill, pad: via.pad, count: via.count } : undefined;
+  const vias = solution.termination === 'short' && via ? { drill: via.drill, pad: via.pad, count: via.count, pitch: via.pitch } : undefined;
   const start = copperOf(lines, stubCount, solution.termination, seriesLength, stubLength, plan.leadLength, vias);
   const residualOf = (x: readonly [number, number]): readonly [number, number] => {
     const zin = physicalInputImpedance({ ...start, seriesLength: x[0], stubLength: x[1] }, spec.load, spec.substrate, spec.frequency);
