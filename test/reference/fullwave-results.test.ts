@@ -92,6 +92,8 @@ function copperDifferences(recorded: RecordedDesign, today: DesignRecord): strin
 const OUTSIDE_ACCEPTANCE: Readonly<Record<string, string>> = {
   'fw-1g8-complex-target':
     'a complex target (25+j15 Ω) through a 6 mm lead: −2.99 % in the ninth round (reference planes taken from the measurement plane openEMS snaps to the mesh; −3.94 % in the eighth round without that), −30.2 dB at f0 (drawn as solid 35 µm copper −2.65 %); tunestrip\'s own network of the same sheet copper splits it as −1.2 % for the sheet-vs-35 µm convention, about −1.2 % for the T-junction correction at this geometry and −0.6 % for the FDTD line impedance (open in the project issue)',
+  'mixer-10g':
+    'the bundled example, a short stub on two 0.2 mm vias at 10 GHz on 0.787 mm PTFE-glass: +2.28 % (−27.7 dB at f0) in the tenth round, the first run of a design on a via row at this frequency; its bare via row measured 0.233 nH against the design model\'s 0.169 nH, so the via model does not put it high (open in the project issue)',
 };
 const meetsAcceptance = (r: RecordedDesign): boolean => Math.abs(r.offset_percent) <= 2 && r.s11_db_at_f0 <= -15;
 

@@ -45,9 +45,9 @@ export function mutualInductanceGrover(length: number, distance: number): number
  * Scale on Grover's mutual inductance between the vias of a row, fitted to this project's own
  * full-wave extractions of five rows of 2–3 vias at a line's end (openEMS FDTD; scripts/fullwave/
  * junctions.json "via_rows", made by `extract_junctions.py via-row`, fitted by junction-fit.ts
- * fitViaRowMutual; least squares in relative error, rounded to 3 digits). The rows measured 8–42 %
- * above the model without mutual inductance; with it, the cases lie within −27…+15 % (the worst,
- * 0.787 mm PTFE at 10 GHz, low), against −42…−8 % without it. Rows are the least certain via model.
+ * fitViaRowMutual; least squares in relative error, rounded to 3 digits). The rows measured 9–72 %
+ * above the model without mutual inductance (that model −42…−8 %); with it, the cases lie within
+ * −27…+15 % (the worst, 0.787 mm PTFE at 10 GHz, low). Rows are the least certain via model.
  */
 export const VIA_ROW_MUTUAL_FIT = 0.684;
 
