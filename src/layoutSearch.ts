@@ -1,13 +1,11 @@
 // Layout variants in order of electrical preference, each laid out and checked against the space
 // the spec allows. When the preferred layout does not fit, the first variant that does is used,
 // and what changed is said.
-import type { BoardGeometry, IdealSolution, MatchCopper, PhysicalDesign, Spec, StubStyle } from './seams.js';
+import type { BoardGeometry, IdealSolution, PhysicalDesign, Spec, StubStyle } from './seams.js';
 import { solveSingleStub } from './solve/index.js';
-import { MODEL_NAMES, planJunction, realizeAll, type JunctionPlan, type SizedLines } from './physical/realize.js';
-import { mismatch, physicalInputImpedance } from './analysis/physicalNetwork.js';
-import { abs, db } from './math/complex.js';
+import { planJunction, realizeAll, withBends, type JunctionPlan, type SizedLines } from './physical/realize.js';
 import { layoutStubMatch, checkFit, foldFits, placeGeometry, type FitReport, type StubFold, type StubLayoutInput } from './geometry/index.js';
-import { mitreDouvilleJames, mitredBendLength } from './physical/discontinuities/index.js';
+import { mitreDouvilleJames } from './physical/discontinuities/index.js';
 
 /** How the stub is drawn: straight, or folded once (L) or twice (U) with its bends towards the load or the source. */
 export type Fold = 'straight' | 'L-source' | 'L-load' | 'U-source' | 'U-load';
@@ -71,7 +69,7 @@ export function layoutVariants(spec: Spec, lines: SizedLines, explore = hasSpace
       for (const side of sides) {
         for (const d of explore ? e.designs : e.designs.slice(0, 1)) {
           const straight: PhysicalDesign = e.style === 'balanced' || d.copper.stubCount === 0 ? d : { ...d, stubSides: [side] };
-          const sided = fold === 'straight' || straight.copper.stubCount === 0 ? straight : withBends(spec, straight, fold);
+          const sided = fold === 'straight' || straight.copper.stubCount === 0 ? straight : withBends(spec, straight, fold.startsWith('U') ? 2 : 1);
           const input = layoutInputOf(spec, sided, fold);
           // A fold that cannot be built at this stub length (too short to fold) is not a variant.
           if (input.fold && !foldFits(input)) continue;
@@ -132,20 +130,4 @@ function foldOf(spec: Spec, physical: PhysicalDesign, fold: Fold): StubFold | un
   return { kind, toward, mitreCut: mitreDouvilleJames(w, spec.substrate.height).edgeCut, clearance: Math.max(2 * w, spec.fab.minSpace) };
 }
 
-/**
- * The design drawn folded: a mitred bend is electrically shorter than its centre-line
- * (mitredBendLength, fitted to full-wave runs), so the stub's drawn centre-line grows by what its
- * bends take, and the network sees the same electrical stub as before: the match is unchanged.
- */
-function withBends(spec: Spec, physical: PhysicalDesign, fold: Exclude<Fold, 'straight'>): PhysicalDesign {
-  const count = fold.startsWith('U') ? 2 : 1;
-  const lengthEach = mitredBendLength(physical.copper.stubWidth, spec.substrate.height);
-  const delta = -count * lengthEach;
-  const copper: MatchCopper = { ...physical.copper, stubLength: physical.copper.stubLength + delta, bends: { count, lengthEach } };
-  const sections = physical.sections.map((sec) =>
-    sec.role === 'stub' ? { ...sec, length: copper.stubLength, corrections: [...sec.corrections, { model: MODEL_NAMES.bend, delta }] } : sec,
-  );
-  const zin = physicalInputImpedance(copper, spec.load, spec.substrate, spec.frequency);
-  return { ...physical, copper, sections, s11DbAtF0: db(abs(mismatch(zin, spec.target))) };
-}
 

@@ -99,7 +99,7 @@ function stubAdmittance(
   return inv(inputImpedance(viaImpedance(copper.vias, copper.stubWidth, substrate, frequency), z0, gamma, length));
 }
 
-/** Impedance of a stub's end on `count` vias in parallel (Goldfarb–Pucel 1991 with the fitted strip-to-pad crowding; mutual coupling ignored). */
+/** Impedance of a stub's end on a row of `count` vias (Goldfarb–Pucel 1991 with the fitted strip-to-pad crowding and, for a row, the fitted mutual inductance). */
 export function viaImpedance(
   vias: NonNullable<MatchCopper['vias']>,
   stubWidth: number,

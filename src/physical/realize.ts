@@ -15,7 +15,7 @@ import type {
   ViaSpec,
 } from '../seams.js';
 import { synthesizeMicrostrip } from './microstrip/index.js';
-import { openEndExtensionDesign, tJunctionHammerstad, viaInductanceDesign } from './discontinuities/index.js';
+import { mitredBendLength, openEndExtensionDesign, tJunctionHammerstad, viaInductanceDesign } from './discontinuities/index.js';
 import { inputImpedance } from '../math/lines.js';
 import { newton2 } from '../math/newton.js';
 import { MIN_DRAWN_WIDTH } from '../geometry/layout.js';
@@ -296,6 +296,22 @@ function realizeBranch(
     converged: result.residual <= 1e-6 && buildable,
     notes,
   };
+}
+
+/**
+ * The design drawn folded: a mitred bend is electrically shorter than its centre-line
+ * (mitredBendLength, fitted to full-wave runs), so the stub's drawn centre-line grows by what its
+ * bends take, and the network sees the same electrical stub as before: the match is unchanged.
+ */
+export function withBends(spec: Spec, physical: PhysicalDesign, count: 1 | 2): PhysicalDesign {
+  const lengthEach = mitredBendLength(physical.copper.stubWidth, spec.substrate.height);
+  const delta = -count * lengthEach;
+  const copper: MatchCopper = { ...physical.copper, stubLength: physical.copper.stubLength + delta, bends: { count, lengthEach } };
+  const sections = physical.sections.map((sec) =>
+    sec.role === 'stub' ? { ...sec, length: copper.stubLength, corrections: [...sec.corrections, { model: MODEL_NAMES.bend, delta }] } : sec,
+  );
+  const zin = physicalInputImpedance(copper, spec.load, spec.substrate, spec.frequency);
+  return { ...physical, copper, sections, s11DbAtF0: db(abs(mismatch(zin, spec.target))) };
 }
 
 /** Shortest stub the fabrication rules allow: a feature at least one minimum trace long; a via pad clear of the line. */
