@@ -15,7 +15,7 @@
 // impedance-ratio terms of fittedJunction.ts (planeAPerLogZRatio, n2DeficitPerLogZRatio,
 // susceptancePerLogZRatio: linear in ln(Z_main/Z_stub); ninth round of README.md).
 //
-//   npx tsx scripts/fullwave/tee-permittivity.ts [--ratio=TERM,TERM] [OUT_DIR ...]
+//   npx tsx scripts/fullwave/tee-permittivity.ts [--ratio=TERM,TERM] [--include=TEE,TEE] [OUT_DIR ...]
 import { readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -25,7 +25,11 @@ import { modelMinimum, readDesignRecord, type DesignRecord } from './design-reco
 import { fitJunction, fittedTees, junctionElements, junctionPoints, readJunctions, rmsError } from './junction-fit.js';
 
 const data = readJunctions();
-const points = junctionPoints(fittedTees(data));
+// With `--include=NAME,NAME` the candidate is fitted to those held-out tees as well.
+const includeArg = process.argv.find((a) => a.startsWith('--include='));
+const included = includeArg ? includeArg.slice('--include='.length).split(',') : [];
+const candidateTees = [...fittedTees(data), ...data.tees.filter((t) => t.use === 'check' && included.includes(t.name))];
+const points = junctionPoints(candidateTees);
 // Least squares from TEE_FIT with zero permittivity terms (fitJunction fits them when they are given).
 const ratioArg = process.argv.find((a) => a.startsWith('--ratio='));
 const ratioTerms = ratioArg ? ratioArg.slice('--ratio='.length).split(',') : [];
@@ -34,7 +38,7 @@ const { fit: candidate, rms: value } = fitJunction(
   ratioArg ? { ...TEE_FIT, ...Object.fromEntries(ratioTerms.map((t) => [t, 0])) } : { ...TEE_FIT, planeAPerEr: 0, n2DeficitPerEr: 0 },
 );
 const f = (v: number, d: number): string => v.toFixed(d);
-console.log(`candidate over ${fittedTees(data).length} fitted tees: ${JSON.stringify(Object.fromEntries(Object.entries(candidate).map(([k, v]) => [k, Number(v.toFixed(4))])))}`);
+console.log(`candidate over ${candidateTees.length} tees: ${JSON.stringify(Object.fromEntries(Object.entries(candidate).map(([k, v]) => [k, Number(v.toFixed(4))])))}`);
 console.log(`  S rms: candidate ${f(value, 5)}, TEE_FIT ${f(rmsError(points, (p) => junctionElements(p, TEE_FIT)), 5)}, Hammerstad alone ${f(rmsError(points, (p) => junctionElements(p, undefined)), 5)}`);
 console.log('\ntee                               candidate TEE_FIT   Hammerstad');
 for (const record of data.tees) {
@@ -49,7 +53,7 @@ const minimumOffset = (d: DesignRecord, fit: JunctionFit): number => modelMinimu
 
 const here = dirname(fileURLToPath(import.meta.url));
 const recorded = (JSON.parse(readFileSync(join(here, 'results.json'), 'utf8')) as { designs: { name: string; copper_model: string; offset_percent: number }[] }).designs;
-const folders = process.argv.slice(2).filter((a) => !a.startsWith('--ratio='));
+const folders = process.argv.slice(2).filter((a) => !a.startsWith('--ratio=') && !a.startsWith('--include='));
 if (folders.length > 0) console.log('\ndesign                            move of the model minimum          recorded full-wave (sheet)   first-order estimate');
 for (const folder of folders) {
   const d = readDesignRecord(folder);
