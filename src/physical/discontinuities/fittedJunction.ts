@@ -14,14 +14,14 @@
 // fit leaves an rms error of 0.006–0.018 in the even-mode S per case (the bare T: 0.015–0.13).
 //
 // TEE_FIT, for a single stub: eleven T-junctions (two more held out), εr 2.2–10.2, h 0.508–1.6 mm,
-// 50 Ω main lines with 30–80 Ω stubs. The held-out tee at f·h 7.9 GHz·mm (εr 2.2, 10 GHz) has far less
-// junction capacitance than the susceptance term gives (0.27 against 1.68 mS): on εr 2.2 the
-// correction holds at f·h 3.3 GHz·mm and misses at 7.9 (eleventh round of scripts/fullwave/README.md). Hammerstad's planes hold near εr 4.4 (planeA near 1,
-// stubPlaneD2 near 0); his transformer deficit is about 2.5 times too small and a wide stub's
-// junction capacitance is missing. The εr 10.2 tees want shorter main-arm planes and a larger
-// deficit (with one set of coefficients for all εr, the full-wave designs there landed about 2 %
-// low, in runs stopped at −50 dB), so TEE_FIT lets those two coefficients change linearly with εr
-// about 4.4:
+// 50 Ω main lines with 30–80 Ω stubs. The held-out tee at f·h 7.9 GHz·mm (εr 2.2, 10 GHz) has far
+// less junction capacitance than the susceptance term gives (0.27 against 1.68 mS): on εr 2.2 the
+// correction holds at f·h 3.3 GHz·mm and misses at 7.9 (eleventh round of scripts/fullwave/README.md).
+// Hammerstad's planes hold near εr 4.4 (planeA near 1, stubPlaneD2 near 0); his transformer deficit
+// is about 2.5 times too small and a wide stub's junction capacitance is missing. The εr 10.2 tees
+// want shorter main-arm planes and a larger deficit (with one set of coefficients for all εr, the
+// full-wave designs there landed about 2 % low, in runs stopped at −50 dB), so TEE_FIT lets those two
+// coefficients change linearly with εr about 4.4:
 //   planeA    → planeA + planeAPerEr·(εr − 4.4)
 //   n2Deficit → n2Deficit + n2DeficitPerEr·(εr − 4.4)
 // with εr held to the extractions' 2.2–10.2 (outside it the terms are not extrapolated). Fitted by
