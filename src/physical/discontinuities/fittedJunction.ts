@@ -13,7 +13,7 @@
 // Each stub of a cross is electrically shorter than the stub of a T, which these shifts capture. The
 // fit leaves an rms error of 0.006–0.018 in the even-mode S per case (the bare T: 0.015–0.13).
 //
-// TEE_FIT, for a single stub: eleven T-junctions (two more held out), εr 2.2–10.2, h 0.508–1.6 mm,
+// TEE_FIT, for a single stub: eleven T-junctions (three more held out), εr 2.2–10.2, h 0.508–1.6 mm,
 // 50 Ω main lines with 30–80 Ω stubs. The held-out tee at f·h 7.9 GHz·mm (εr 2.2, 10 GHz) has far
 // less junction capacitance than the susceptance term gives (0.27 against 1.68 mS): on εr 2.2 the
 // correction holds at f·h 3.3 GHz·mm and misses at 7.9 (eleventh round of scripts/fullwave/README.md).
