@@ -29,6 +29,7 @@ const data = readJunctions();
 const includeArg = process.argv.find((a) => a.startsWith('--include='));
 const included = includeArg ? includeArg.slice('--include='.length).split(',') : [];
 const candidateTees = [...fittedTees(data), ...data.tees.filter((t) => t.use === 'check' && included.includes(t.name))];
+if (candidateTees.length !== fittedTees(data).length + included.length) throw new Error(`--include names held-out tees only; held out: ${data.tees.filter((t) => t.use === 'check').map((t) => t.name).join(', ')}`);
 const points = junctionPoints(candidateTees);
 // Least squares from TEE_FIT with zero permittivity terms (fitJunction fits them when they are given).
 const ratioArg = process.argv.find((a) => a.startsWith('--ratio='));

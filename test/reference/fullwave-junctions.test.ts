@@ -9,6 +9,7 @@ import { BEND_LENGTH_FIT, CROSS_FIT, OPEN_END_FULLWAVE_SCALE, TEE_FIT, VIA_CROWD
 import { abs, add, complex, conj, mul } from '../../src/math/complex.js';
 import {
   bendComparisons,
+  caseElements,
   fitBendLength,
   fitViaRowMutual,
   viaRowComparisons,
@@ -124,8 +125,22 @@ describe('T-junction model (Hammerstad 1981 with TEE_FIT, src/physical/discontin
     for (const name of TEES_OUTSIDE_BOUND) expect(data.tees.find((t) => t.name === name)?.use).toBe('check');
   });
 
+  it('at f·h 6.8–7.9 GHz·mm the held-out 50/50 Ω tees carry under a third of the susceptance TEE_FIT gives', () => {
+    // junctions.json (our own openEMS extractions, eleventh round): each tee's own elements at f0 give
+    // 0.30 mS (εr 3.0, 9 GHz) and 0.27 mS (εr 2.2, 10 GHz) against TEE_FIT's 1.21 and 1.68 mS. The
+    // limit the README and fittedJunction.ts state; when TEE_FIT is refitted this test says so.
+    const high = data.tees.filter((t) => ['tee-er3-760-50-50-9g0', 'tee-ptfe-787-50-50-10g0'].includes(t.name));
+    expect(high.map((t) => t.use)).toEqual(['check', 'check']);
+    for (const record of high) {
+      const mid = junctionPoints([record]).find((p) => Math.abs(p.main.frequency - record.frequency_hz) < 1)!;
+      const model = junctionElements(mid, TEE_FIT);
+      expect(caseElements(mid, model).susceptance).toBeLessThan(model.susceptance / 3);
+    }
+  });
+
   it('over all tees the correction beats Hammerstad alone by over a third', () => {
-    // Our own bound: over the eleven fitted tees the fit gives 0.0097 rms against Hammerstad's 0.0190.
+    // Our own bound: over the eleven fitted tees the fit gives 0.0097 rms against Hammerstad's 0.0190
+    // (over all fourteen, held-out ones too, see fit-junctions.ts).
     const tees = junctionPoints(data.tees);
     expect(rmsError(tees, (p) => junctionElements(p, TEE_FIT))).toBeLessThan(0.67 * rmsError(tees, (p) => junctionElements(p, undefined)));
   });

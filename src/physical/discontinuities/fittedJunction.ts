@@ -16,7 +16,8 @@
 // TEE_FIT, for a single stub: eleven T-junctions (three more held out), εr 2.2–10.2, h 0.508–1.6 mm,
 // 50 Ω main lines with 30–80 Ω stubs. The held-out tee at f·h 7.9 GHz·mm (εr 2.2, 10 GHz) has far
 // less junction capacitance than the susceptance term gives (0.27 against 1.68 mS): on εr 2.2 the
-// correction holds at f·h 3.3 GHz·mm and misses at 7.9 (eleventh round of scripts/fullwave/README.md).
+// correction holds at f·h 3.3 GHz·mm and misses at 7.9; a held-out εr 3.0 tee at f·h 6.8 shows the
+// same overshoot (0.30 against 1.21 mS) (eleventh round of scripts/fullwave/README.md).
 // Hammerstad's planes hold near εr 4.4 (planeA near 1, stubPlaneD2 near 0); his transformer deficit
 // is about 2.5 times too small and a wide stub's junction capacitance is missing. The εr 10.2 tees
 // want shorter main-arm planes and a larger deficit (with one set of coefficients for all εr, the
