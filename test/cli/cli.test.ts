@@ -1,14 +1,18 @@
 // The built command, run as a child process the way a user runs it (ecosystem.md: CommonJS
 // packages imported the wrong way pass vitest but crash plain node, so one test spawns the build).
-import { describe, expect, it, beforeAll } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 
 const root = resolve(import.meta.dirname, '..', '..');
 const bin = join(root, 'dist', 'cli', 'bin.js');
 const run = (args: string[], cwd = root) => spawnSync(process.execPath, [bin, ...args], { cwd, encoding: 'utf8' });
+
+// One scratch folder for every run's output, removed afterwards.
+const scratch = mkdtempSync(join(tmpdir(), 'tunestrip-cli-'));
+afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 
 beforeAll(() => {
   if (!existsSync(bin)) throw new Error('dist/cli/bin.js is missing: run npm run build (npm test does)');
@@ -22,7 +26,7 @@ describe('tunestrip command', () => {
   });
 
   it('designs the bundled example and writes every artwork file', () => {
-    const out = mkdtempSync(join(tmpdir(), 'tunestrip-cli-'));
+    const out = mkdtempSync(join(scratch, 'run-'));
     const dir = join(out, 'receiver');
     const r = run(['design', 'templates/examples/receiver-5g8.yaml', '--out', dir]);
     expect(r.stderr).not.toMatch(/at .*\.js:\d+/); // no stack trace
@@ -37,7 +41,7 @@ describe('tunestrip command', () => {
   });
 
   it('writes the drill file for a short-stub design with vias', () => {
-    const out = mkdtempSync(join(tmpdir(), 'tunestrip-cli-'));
+    const out = mkdtempSync(join(scratch, 'run-'));
     const r = run(['design', 'templates/examples/mixer-10g.yaml', '--out', join(out, 'm')]);
     expect(r.status, r.stderr).toBe(0);
     const record = JSON.parse(readFileSync(join(out, 'm', 'design.json'), 'utf8'));
@@ -47,7 +51,7 @@ describe('tunestrip command', () => {
   });
 
   it('gives one line, exit 2 and no files for a bad spec', () => {
-    const out = mkdtempSync(join(tmpdir(), 'tunestrip-cli-'));
+    const out = mkdtempSync(join(scratch, 'run-'));
     const spec = join(out, 'bad.yaml');
     writeFileSync(spec, 'name: bad\nfrequency: 5.8 parsecs\nload: 22-j31\nsubstrate: { er: 3.66, height: 0.508 mm }\n');
     const r = run(['design', spec, '--out', join(out, 'o')]);
@@ -65,7 +69,7 @@ describe('tunestrip command', () => {
   });
 
   it('same spec, same bytes', () => {
-    const out = mkdtempSync(join(tmpdir(), 'tunestrip-cli-'));
+    const out = mkdtempSync(join(scratch, 'run-'));
     expect(run(['design', 'templates/examples/receiver-5g8.yaml', '--out', join(out, 'a')]).status).toBe(0);
     expect(run(['design', 'templates/examples/mixer-10g.yaml', '--out', join(out, 'x')]).status).toBe(0);
     expect(run(['design', 'templates/examples/receiver-5g8.yaml', '--out', join(out, 'b')]).status).toBe(0);
@@ -75,7 +79,7 @@ describe('tunestrip command', () => {
   });
 
   it('refuses to write into a folder it did not make, unless --force', () => {
-    const out = mkdtempSync(join(tmpdir(), 'tunestrip-cli-'));
+    const out = mkdtempSync(join(scratch, 'run-'));
     writeFileSync(join(out, 'precious.txt'), 'keep me');
     const r = run(['design', 'templates/examples/receiver-5g8.yaml', '--out', out]);
     expect(r.status).toBe(2);

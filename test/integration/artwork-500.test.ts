@@ -15,7 +15,7 @@ import { spawn, spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { designFromText, type DesignRun } from '../../src/design.js';
 import { TunestripError } from '../../src/diagnostics.js';
 import { islandArea } from '../../src/geometry/index.js';
@@ -98,9 +98,13 @@ async function pool<T, R>(items: readonly T[], width: number, run: (t: T, i: num
 }
 
 describe.skipIf(!FULL)(`artwork of ${N} seeded random specs (seed ${SEED}), all oracles`, () => {
-  const dir = mkdtempSync(join(tmpdir(), 'tunestrip-artwork-'));
+  // Made in beforeAll: vitest runs a skipped describe's body too, and would leave the folder behind.
+  let dir = '';
   const written: Written[] = [];
   const started = Date.now();
+  beforeAll(() => {
+    dir = mkdtempSync(join(tmpdir(), 'tunestrip-artwork-'));
+  });
   afterAll(() => {
     console.log(`artwork-${N}: total wall time ${((Date.now() - started) / 1000).toFixed(1)} s for ${written.length} layouts`);
     rmSync(dir, { recursive: true, force: true });

@@ -3,7 +3,7 @@
 // version 2.0, 2009; version 1 syntax). Skips with a printed reason when scikit-rf is absent.
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { designFromText } from '../../src/design.js';
@@ -32,6 +32,7 @@ describe.skipIf(!hasSkrf)('Touchstone read back by scikit-rf', () => {
       const file = join(dir, 'response.s1p');
       writeFileSync(file, art.text);
       const r = spawnSync('/usr/bin/python3', ['-c', READER, file], { encoding: 'utf8', env: { ...process.env, MPLBACKEND: 'Agg', MPLCONFIGDIR: dir } });
+      rmSync(dir, { recursive: true, force: true });
       expect(r.status, r.stderr).toBe(0);
       // scikit-rf may print a plotting-library notice first; the JSON is the last line.
       const back = JSON.parse(r.stdout.trim().split('\n').at(-1)!);
