@@ -17,6 +17,8 @@ export interface DesignRecord {
   readonly solution: { readonly termination: 'open' | 'short'; readonly style: string };
   readonly lines: readonly Line[];
   readonly vias: readonly { readonly x_m: number; readonly y_m: number; readonly drill_m: number; readonly pad_m: number }[];
+  /** Present for a folded stub: its mitred bends (a straight stub has none). */
+  readonly layout?: { readonly bends?: { readonly count: number; readonly length_each_m: number } };
 }
 
 export const readDesignRecord = (folder: string): DesignRecord => JSON.parse(readFileSync(join(folder, 'design.json'), 'utf8')) as DesignRecord;
@@ -54,6 +56,8 @@ export function copperOfRecord(d: DesignRecord): MatchCopper {
     leadLength: line('lead').length_m,
     termination: d.solution.termination,
     stubCount,
+    // A folded stub is drawn longer by what its bends take; without them the network sees it too long.
+    ...(d.layout?.bends && d.layout.bends.count > 0 ? { bends: { count: d.layout.bends.count, lengthEach: d.layout.bends.length_each_m } } : {}),
     ...(d.solution.termination === 'short' && d.vias[0] ? { vias: { drill: d.vias[0].drill_m, pad: d.vias[0].pad_m, count: d.vias.length / stubCount, pitch: viaRowPitch(d) } } : {}),
   };
 }
