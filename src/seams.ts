@@ -214,6 +214,15 @@ export interface ResponseSet {
   readonly band10dB: { readonly low: number; readonly high: number } | null;
   /** Monte-Carlo spread of the physical network over the fabrication tolerances; null when off. */
   readonly tolerance: ToleranceResult | null;
+  /** The same copper drawn as a lossless zero-thickness sheet; null when the stackup's copper is zero-thickness. */
+  readonly sheetEquivalent: SheetEquivalent | null;
+}
+
+/** Where an EM model of the artwork with zero-thickness copper should put the return-loss minimum. */
+export interface SheetEquivalent {
+  readonly minimumFrequency: number;
+  /** (minimumFrequency − f0)/f0. */
+  readonly offset: number;
 }
 
 export interface ToleranceResult {

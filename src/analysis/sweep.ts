@@ -5,6 +5,7 @@ import { idealInputImpedance as idealLine, idealOpenStubAdmittance, idealShortSt
 import { admittanceOf } from '../math/network.js';
 import { mismatch, physicalInputImpedance } from './physicalNetwork.js';
 import { toleranceRuns } from './tolerance.js';
+import { sheetEquivalent } from './sheetEquivalent.js';
 import { frequencyGrid } from './grid.js';
 
 export { frequencyGrid };
@@ -41,6 +42,7 @@ export function sweep(spec: Spec, design: PhysicalDesign): ResponseSet {
     s11DbAtF0: design.s11DbAtF0,
     band10dB: bandAround(frequencies, physical, design.frequency, -10),
     tolerance: toleranceRuns(spec, design),
+    sheetEquivalent: sheetEquivalent(spec, design),
   };
 }
 

@@ -30,6 +30,10 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
   lines.push(
     `  predicted |S11| at f0 ${modelS11Text(physical.s11DbAtF0)}; ${response.band10dB ? `return loss ≥ 10 dB from ${ghz(response.band10dB.low)} to ${ghz(response.band10dB.high)}` : 'return loss below 10 dB at f0'}`,
   );
+  const sheet = response.sheetEquivalent;
+  if (sheet) {
+    lines.push(`  an EM model with zero-thickness copper should put the minimum at ${ghz(sheet.minimumFrequency)} (${sheet.offset >= 0 ? '+' : ''}${fixed(sheet.offset * 100, 2)} %)`);
+  }
   const tol = response.tolerance;
   if (tol) {
     lines.push(`  fabrication spread (${tol.runs} runs): |S11| at f0 median ${fixed(tol.s11DbAtF0.median, 1)} dB, 95 % ${fixed(tol.s11DbAtF0.p95, 1)} dB; RL ≥ 10 dB in ${fixed(tol.yield10dB * 100, 0)} % of boards`);

@@ -73,6 +73,9 @@ export function designRecord(input: DesignRecordInput): unknown {
     predicted: {
       s11_db_at_f0: physical.s11DbAtF0,
       band_10db_hz: response.band10dB ? [response.band10dB.low, response.band10dB.high] : null,
+      zero_thickness_sheet: response.sheetEquivalent
+        ? { f_min_hz: response.sheetEquivalent.minimumFrequency, offset_percent: response.sheetEquivalent.offset * 100 }
+        : null,
     },
     tolerance: response.tolerance
       ? {

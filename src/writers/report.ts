@@ -6,6 +6,8 @@ import { fixed, ghz, impedanceText, mm, modelS11Text, trimmed } from '../format.
 
 export type ReportInput = DesignRecordInput;
 
+const signedPercent = (fraction: number): string => `${fraction >= 0 ? '+' : ''}${fixed(fraction * 100, 2)} %`;
+
 export const CAUTIONS: readonly string[] = [
   'This design comes from closed-form models. Verify it by EM simulation or by measurement before it is used in a product or connected to a transmitter.',
   'RF power can burn skin and heat parts and boards; exposure to RF fields has legal limits. Follow your local RF-exposure and electrical-safety rules.',
@@ -75,6 +77,11 @@ export function writeReport(input: ReportInput): Artifact {
       : '- return loss does not reach 10 dB at the design frequency',
   );
   out.push('- the load impedance is held constant over the band; a real device changes with frequency.');
+  if (response.sheetEquivalent) {
+    out.push(
+      `- the lines are sized for ${trimmed(spec.substrate.copper * 1e6, 2)} µm copper. An EM model that draws this artwork as a zero-thickness sheet sees other lines (thickness lowers εeff and Z0) and should put the return-loss minimum at ${ghz(response.sheetEquivalent.minimumFrequency)} (${signedPercent(response.sheetEquivalent.offset)}), not at ${ghz(spec.frequency)}; to compare like with like, model the copper's thickness or design with \`copper: 0\`.`,
+    );
+  }
   const tol = response.tolerance;
   if (tol) {
     const t = spec.tolerance;
