@@ -35,7 +35,7 @@ const zeroThickness = (c: FieldCase): FieldCase => {
 // Hammerstad–Jensen 1980 state εe to 0.2 % over 0.01 ≤ u ≤ 100 and εr ≤ 128 (physics.md §1.1, [R]);
 // Z01 to 0.01–0.03 % ([M]), so Z0 = Z01/√εe to about 0.1 %. For thick strips the paper states no
 // accuracy; we asked the same 0.2 % of them before the field solution was run. Z0 met it (worst
-// 0.10 %); εe did not: the thickness term lowers εe by 5–11 % more than the field solution does
+// 0.10 %); εe did not: the thickness term lowers εe by 2–11 % more than the field solution does
 // (εe 0.39 % low at w/h 0.5, t/h 0.069, εr 4.4). THICK_EPS_EFF_ACCURACY states that measured spread
 // (a bound set after the run, ours); Z0 and the shift of Z0 carry most of a match's sensitivity.
 const HJ_ACCURACY = 0.002;
