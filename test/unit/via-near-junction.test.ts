@@ -58,8 +58,8 @@ describe('via-near-junction warning', () => {
     }
   });
 
-  it('is not given for the closest recorded via (fw-3g5-short-via-close)', () => {
-    expect(warnings(specText('fw-3g5-short-via-close'), 'close')).toHaveLength(0);
+  it('is not given for the closest recorded via (fw-1g9-fr4-short)', () => {
+    expect(warnings(specText('fw-1g9-fr4-short'), 'closest')).toHaveLength(0);
   });
 
   it('is given, with the distance in wavelengths, for a via closer than that', () => {
