@@ -16,6 +16,9 @@ export function trimmed(value: number, decimals: number): string {
 /** Gigahertz from hertz, trimmed, with its unit: 5.8 GHz. */
 export const ghz = (hz: number): string => `${trimmed(hz / 1e9, 6)} GHz`;
 
+/** A fraction as a signed percentage with two decimals: -0.0140 → "-1.40 %", 0.003 → "+0.30 %". */
+export const signedPercent = (fraction: number): string => `${fraction >= 0 ? '+' : ''}${fixed(fraction * 100, 2)} %`;
+
 /** Millimetres from metres, trimmed. */
 export const mm = (metres: number, decimals = 3): string => trimmed(metres * 1e3, decimals);
 

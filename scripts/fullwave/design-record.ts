@@ -4,6 +4,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { abs, complex } from '../../src/math/complex.js';
+import { minimiseOnGrid } from '../../src/math/minimise.js';
 import { mismatch, physicalInputImpedance, type NetworkModels } from '../../src/analysis/physicalNetwork.js';
 import type { MatchCopper, Substrate } from '../../src/seams.js';
 
@@ -66,18 +67,13 @@ export interface ModelMinimum { readonly f_min_hz: number; readonly offset_perce
 
 /**
  * The return-loss minimum of `copper` (default: the design's own) on `substrate` (default: the
- * design's stackup) in tunestrip's physical network with `models`, against the design's target: a grid over 0.7–1.3 f0 in steps of 0.01 % of f0.
+ * design's stackup) in tunestrip's physical network with `models`, against the design's target: a grid over 0.7–1.3 f0 in steps of 0.01 % of f0, refined to 1e-7 f0.
  */
 export function modelMinimum(d: DesignRecord, models: NetworkModels, copper: MatchCopper = copperOfRecord(d), substrate: Substrate = substrateOfRecord(d)): ModelMinimum {
   const f0 = d.frequency_hz;
   const load = complex(d.load_ohm[0], d.load_ohm[1]);
   const target = complex(d.target_ohm[0], d.target_ohm[1]);
   const gammaAt = (f: number): number => abs(mismatch(physicalInputImpedance(copper, load, substrate, f, models), target));
-  let best = { f: f0, g: Infinity };
-  for (let k = 0; k <= 6000; k += 1) {
-    const f = f0 * (0.7 + (0.6 * k) / 6000);
-    const g = gammaAt(f);
-    if (g < best.g) best = { f, g };
-  }
-  return { f_min_hz: best.f, offset_percent: (100 * (best.f - f0)) / f0, s11_db_at_f0: 20 * Math.log10(gammaAt(f0)) };
+  const fMin = minimiseOnGrid(gammaAt, 0.7 * f0, 1.3 * f0, 6001, 1e-7 * f0);
+  return { f_min_hz: fMin, offset_percent: (100 * (fMin - f0)) / f0, s11_db_at_f0: 20 * Math.log10(gammaAt(f0)) };
 }

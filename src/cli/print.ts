@@ -2,7 +2,7 @@
 import type { Diagnostic } from '../diagnostics.js';
 import type { DesignRun } from '../design.js';
 import type { IdealSolution, LineProperties } from '../seams.js';
-import { fixed, ghz, impedanceText, mm, modelS11Text } from '../format.js';
+import { fixed, ghz, impedanceText, mm, modelS11Text, signedPercent } from '../format.js';
 
 
 const ROLE_LABEL = { series: 'series line', stub: 'stub', 'lead-source': 'source lead', 'lead-load': 'load lead' } as const;
@@ -32,7 +32,7 @@ export function designSummary(run: DesignRun, written: readonly string[], outDir
   );
   const sheet = response.sheetEquivalent;
   if (sheet) {
-    lines.push(`  an EM model with zero-thickness copper should put the minimum at ${ghz(sheet.minimumFrequency)} (${sheet.offset >= 0 ? '+' : ''}${fixed(sheet.offset * 100, 2)} %)`);
+    lines.push(`  an EM model with zero-thickness copper should put the minimum at ${ghz(sheet.minimumFrequency)} (${signedPercent(sheet.offset)})`);
   }
   const tol = response.tolerance;
   if (tol) {

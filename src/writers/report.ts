@@ -2,11 +2,9 @@
 // length was corrected, what the model predicts, and the cautions that go with RF hardware.
 import type { Artifact, Section } from '../seams.js';
 import type { DesignRecordInput } from './json.js';
-import { fixed, ghz, impedanceText, mm, modelS11Text, trimmed } from '../format.js';
+import { fixed, ghz, impedanceText, mm, modelS11Text, signedPercent, trimmed } from '../format.js';
 
 export type ReportInput = DesignRecordInput;
-
-const signedPercent = (fraction: number): string => `${fraction >= 0 ? '+' : ''}${fixed(fraction * 100, 2)} %`;
 
 export const CAUTIONS: readonly string[] = [
   'This design comes from closed-form models. Verify it by EM simulation or by measurement before it is used in a product or connected to a transmitter.',

@@ -43,6 +43,7 @@ describe('sheetEquivalent', () => {
       const g = gammaAt(f);
       if (g < best.g) best = { f, g };
     }
+    // Within one step of the dense grid (0.2 f0 / 20000 = 1e-5 f0).
     expect(Math.abs((sheet?.minimumFrequency ?? NaN) - best.f) / spec.frequency).toBeLessThan(1e-5);
     expect(sheet?.offset).toBeCloseTo((sheet?.minimumFrequency ?? NaN) / spec.frequency - 1, 12);
   });
