@@ -4,7 +4,7 @@
 Usage:
     /usr/bin/python3 scripts/fullwave/simulate.py OUT_DIR [OUT_DIR ...]
         [--spec SPEC ...] [--results scripts/fullwave/results.json] [--work /tmp/fullwave]
-        [--refine 2] [--thick] [--threads 1] [--reuse] [--no-write]
+        [--refine 2] [--thick [--copper-cells 1]] [--wall-cells 0] [--threads 1] [--reuse] [--no-write]
 
 What it does, per design folder (the output of `tunestrip design`):
   1. Reads design.json (substrate, frequency, load, target, lines, ports, vias) and the copper as
@@ -135,12 +135,38 @@ def merge(lines, tol):
     return out
 
 
-def plan_model(design: dict, refine: float = 1.0, thick: bool = False) -> dict:
+def wall_lines(polygons, step, cells, skip_x):
+    """Mesh lines for the side walls of solid copper: one on each wall and `cells` more on either
+    side of it, `step` apart, so the fields round the copper's corners are resolved on the scale
+    of its thickness (the thirds rule is for zero-thickness sheets)."""
+    offsets = [step * k for k in range(-cells, cells + 1)]
+    xs, ys = [], []
+    for pts in polygons:
+        n = len(pts)
+        for i in range(n):
+            (x1, y1), (x2, y2) = pts[i], pts[(i + 1) % n]
+            if abs(x2 - x1) < 1e-9 and abs(y2 - y1) > 1e-9:
+                if not any(abs(x1 - s) < 1e-6 for s in skip_x):
+                    xs += [x1 + o for o in offsets]
+            elif abs(y2 - y1) < 1e-9 and abs(x2 - x1) > 1e-9:
+                ys += [y1 + o for o in offsets]
+            else:
+                xs += [x1]
+                ys += [y1]
+    return xs, ys
+
+
+def plan_model(design: dict, refine: float = 1.0, thick: bool = False, copper_cells: int = 1, wall_cells: int = 0) -> dict:
     """Everything both runs share: materials, copper, feeds, ports, mesh lines (mm).
 
     `refine` divides every cell size (a mesh-convergence knob). `thick` draws the design's copper
     as a solid of the stackup's copper thickness (the feeds stay zero-thickness sheets; the step at
-    the reference plane is tiny) instead of a zero-thickness sheet.
+    the reference plane is tiny) instead of a zero-thickness sheet. `copper_cells` above 1 puts that
+    many cells across the solid copper (a convergence check of the thickness; 1 is the recorded
+    setting). `wall_cells` above 0 replaces the thirds rule at the copper's edges by lines on each
+    edge and that many either side, the stackup's copper thickness / `wall_cells` apart (sheet or
+    solid, so the two can be compared on one lateral mesh); it defaults to `copper_cells` when
+    that is above 1.
     """
     sub = design['substrate']
     f0 = design['frequency_hz']
@@ -179,11 +205,24 @@ def plan_model(design: dict, refine: float = 1.0, thick: bool = False) -> dict:
     xhi = max(f['x_far'] for f in feeds.values()) + 3 * res
     ylo, yhi = ymin - margin_xy, ymax + margin_xy
 
-    xs, ys = edge_lines(polys, fine, skip_x=[x_load, x_src])
+    t = sub['copper_m'] / UNIT if thick else 0.0
+    if thick and t <= 0:
+        raise SystemExit('--thick needs a design with copper thickness > 0')
+    if copper_cells > 1 and not thick:
+        raise SystemExit('--copper-cells needs --thick')
+    wall_cells = wall_cells or (copper_cells if copper_cells > 1 else 0)
+    tol = fine / 4
+    if wall_cells > 0:
+        pitch = sub['copper_m'] / UNIT / wall_cells
+        if pitch <= 0:
+            raise SystemExit('--wall-cells needs a design with copper thickness > 0')
+        xs, ys = wall_lines(polys, pitch, wall_cells, skip_x=[x_load, x_src])
+        tol = pitch / 2
+    else:
+        xs, ys = edge_lines(polys, fine, skip_x=[x_load, x_src])
     for f in feeds.values():
         xs += [f['x_far'], f['x_ref']]
     vias = [{'x': v['x_m'] / UNIT, 'y': v['y_m'] / UNIT, 'r': v['drill_m'] / 2 / UNIT} for v in design.get('vias', [])]
-    tol = fine / 4
     via_x, via_y = [], []
     for v in vias:
         step = v['r'] / via_cells
@@ -201,15 +240,13 @@ def plan_model(design: dict, refine: float = 1.0, thick: bool = False) -> dict:
     mesh_x = SmoothMeshLines(merge(list(core_x), tol / 2) + [xlo, xhi], res, GROWTH)
     mesh_y = SmoothMeshLines(merge(list(core_y), tol / 2) + [ylo, yhi], res, GROWTH)
     z_sub = list(np.linspace(0, h, substrate_cells + 1))
-    t = sub['copper_m'] / UNIT if thick else 0.0
-    if thick and t <= 0:
-        raise SystemExit('--thick needs a design with copper thickness > 0')
-    mesh_z = SmoothMeshLines(z_sub + ([h + t] if thick else []) + [h + air], res, GROWTH)
+    copper_z = [h + t * k / copper_cells for k in range(1, copper_cells + 1)] if thick else []
+    mesh_z = SmoothMeshLines(z_sub + copper_z + [h + air], res, GROWTH)
     kappa = 2 * math.pi * f0 * EPS0 * er * sub['tan_delta']
     return {
         'f0': f0, 'h': h, 't': t, 'er': er, 'kappa': kappa, 'polys': polys, 'vias': vias, 'feeds': feeds, 'meas': meas,
         'mesh': {'x': [float(v) for v in mesh_x], 'y': [float(v) for v in mesh_y], 'z': [float(v) for v in mesh_z]},
-        'res': res, 'fine': fine, 'refine': refine, 'substrate_cells': substrate_cells, 'box': (xlo, xhi, ylo, yhi, h + air),
+        'res': res, 'fine': fine, 'refine': refine, 'substrate_cells': substrate_cells, 'copper_cells': copper_cells if thick else 0, 'wall_cells': wall_cells, 'box': (xlo, xhi, ylo, yhi, h + air),
     }
 
 
@@ -417,11 +454,12 @@ def run_or_reuse(worker, jobs, reuse):
         return pool.map(worker, jobs)
 
 
-def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria=END_CRITERIA):
+def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria=END_CRITERIA, copper_cells=1, wall_cells=0):
     design = read_design(folder)
     name = design['name']
-    plan = {**plan_model(design, refine, thick), 'end_criteria': end_criteria}
-    tag = name + ('' if refine == 1.0 else f'-refine{refine:g}') + ('-thick' if thick else '')
+    plan = {**plan_model(design, refine, thick, copper_cells, wall_cells), 'end_criteria': end_criteria}
+    tag = (name + ('' if refine == 1.0 else f'-refine{refine:g}') + ('-thick' if thick else '')
+           + (f'-cu{copper_cells}' if copper_cells > 1 else '') + (f'-walls{plan["wall_cells"]}' if plan['wall_cells'] else ''))
     jobs = [(plan, role, os.path.join(work, tag, 'excite-' + role), threads) for role in ('source', 'load')]
     runs = [snap_saved_run(r, plan) for r in run_or_reuse(run_one, jobs, reuse)]
     run_src, run_load = runs
@@ -457,7 +495,8 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria
         'load_ohm': design['load_ohm'],
         'target_ohm': design['target_ohm'],
         'termination': design['solution']['termination'],
-        'copper_model': 'solid, the stackup thickness' if thick else 'zero-thickness sheet',
+        'copper_model': (('solid, the stackup thickness' + (f', {copper_cells} cells across it' if copper_cells > 1 else '')) if thick else 'zero-thickness sheet')
+                        + (f', edge lines {plan["wall_cells"]} per copper thickness' if plan['wall_cells'] else ''),
         'copper': {
             role: {'width_m': l['width_m'], 'length_m': l['length_m'], 'z0_ohm': l['z0_ohm'], 'eps_eff': l['eps_eff']}
             for role, l in lines.items()
@@ -481,6 +520,8 @@ def simulate(folder, work, threads, reuse, refine=2.0, thick=False, end_criteria
             'substrate_cells': plan['substrate_cells'],
             'refine': plan['refine'],
             'copper_thickness_mm': plan['t'],
+            'copper_cells': plan['copper_cells'],
+            'wall_cells': plan['wall_cells'],
             'min_cell_mm': float(min(np.min(np.diff(plan['mesh'][a])) for a in 'xyz')),
         },
         'run_seconds': round(max(r['seconds'] for r in runs), 1),
@@ -499,6 +540,8 @@ def main():
     ap.add_argument('--threads', type=int, default=1, help='threads per run (two runs go in parallel)')
     ap.add_argument('--refine', type=float, default=2.0, help='divide every cell size by this (2 is the recorded setting; 1 and 1.5 for a convergence check)')
     ap.add_argument('--thick', action='store_true', help="draw the design's copper with the stackup's thickness")
+    ap.add_argument('--copper-cells', type=int, default=1, help='with --thick: cells across the copper and at its side walls (1, the recorded setting; more for a convergence check)')
+    ap.add_argument('--wall-cells', type=int, default=0, help='lines on each copper edge and this many either side, a copper thickness / N apart, instead of the thirds rule (default: --copper-cells when above 1)')
     ap.add_argument('--end-criteria', type=float, default=END_CRITERIA, help='energy decay that ends a run (1e-6, −60 dB, is the recorded setting)')
     ap.add_argument('--reuse', action='store_true', help='post-process earlier runs in --work again')
     ap.add_argument('--no-write', action='store_true', help='print only; leave results.json alone')
@@ -508,7 +551,7 @@ def main():
         with open(args.results, encoding='utf8') as f:
             results = json.load(f)
     for n, folder in enumerate(args.folders):
-        r = simulate(folder, args.work, args.threads, args.reuse, args.refine, args.thick, args.end_criteria)
+        r = simulate(folder, args.work, args.threads, args.reuse, args.refine, args.thick, args.end_criteria, args.copper_cells, args.wall_cells)
         if n < len(args.spec):
             r['spec'] = os.path.relpath(args.spec[n], os.path.join(os.path.dirname(os.path.abspath(__file__)), '..', '..'))
         print(json.dumps({k: r[k] for k in ('name', 'f_min_hz', 'offset_percent', 's11_db_at_f0', 's11_db_at_min', 'fdtd_port_line_at_f0', 'reciprocity_error', 'mesh', 'run_seconds')}, indent=1), flush=True)
