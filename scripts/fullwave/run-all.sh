@@ -35,7 +35,7 @@ for name in fw-5g8-hc-open fw-2g4-short-d400 fw-1g8-complex-target; do simulate 
 for name in fw-1g6-fr4-complex-target fw-1g8-complex-target fw-2g0-fr4-open-stub35 fw-2g4-fr4-open \
     fw-2g4-short-d400 fw-3g3-complex-target-hc fw-3g5-hc-balanced fw-3g5-short-via fw-3g5-short-via-close \
     fw-3g6-er3-complex-target fw-4g0-ptfe-short fw-5g5-ptfe-balanced fw-5g8-hc-open fw-8g0-er10-open \
-    fw-2g4-hc-short-fold-l fw-3g5-er348-complex-target receiver-5g8; do
+    fw-2g4-hc-short-fold-l fw-3g5-er348-complex-target fw-5g2-er615-short40 receiver-5g8; do
   simulate "$name" --wall-cells 1
 done
 for name in fw-1g8-complex-target fw-8g0-er10-open; do simulate "$name" --thick --wall-cells 1; done
