@@ -27,7 +27,8 @@ via: a straight 50 Ω line ending on the centre of one via, with a round pad aro
     tunestrip draws a short stub's end. The via is a PEC cylinder of the drill diameter from the
     ground to the copper. One run; the input impedance is moved to the via centre with the port
     line's measured β and impedance. Recorded: the impedance there, its inductance X/ω, and
-    Goldfarb–Pucel's value for the same via.
+    Goldfarb–Pucel's value for the same via. With --edge-pitch-um the line's edges are meshed as
+    simulate.py --wall-cells 1 meshes them (eighteenth round, vias-fine-edges.json).
 
 bend: a 90° bend of one line with its outer corner mitred as tunestrip draws a folded stub's
     corners (Douville & James 1978: the cut meets each outer edge 2·M·w from the outer corner,
@@ -70,7 +71,7 @@ REFINE = 2.0
 # README), which moved their S by 0.0016 at most and TEE_FIT's least squares in the fourth digit.
 # Each entry records its own setting (`end_criteria`).
 JUNCTION_END_CRITERIA = 1e-5
-SETTINGS = {'end_criteria': JUNCTION_END_CRITERIA, 'results': RESULTS}  # set once from the command line
+SETTINGS = {'end_criteria': JUNCTION_END_CRITERIA, 'results': RESULTS, 'edge_pitch_mm': 0.0}  # set once from the command line
 FIT_POINTS = 13              # frequencies recorded per cross, over FIT_BAND × f0
 FIT_BAND = (0.7, 1.3)
 
@@ -376,12 +377,16 @@ def plan_via(case):
     margin = max(10 * h, 3 * w, 8.0)
     air = max(12 * h, 8.0)
     step = r / via_cells
-    tol = min(fine / 4, step / 2)
+    pitch = SETTINGS['edge_pitch_mm']
+    tol = min(fine / 4, step / 2, pitch / 4 if pitch else math.inf)
     via_lines = list(step * np.arange(-via_cells, via_cells + 1))
     centres = [(k - (count - 1) / 2) * pitch for k in range(count)]   # across the line, as tunestrip draws a row
     span = (count - 1) * pitch
     xs = [v for v in thirds(pad / 2, 1, fine) if v > r + step / 2] + via_lines + [x_far]
-    edges = thirds(w / 2, 1, fine) + [c + e for c in centres for e in thirds(pad / 2, 1, fine)] + ([span / 2 + pad / 2] if span > w else [])
+    # the line's edges as simulate.py --wall-cells 1 meshes them (a line on the edge and one either
+    # side, `pitch` apart) when --edge-pitch-um is given; the pads' lines stay as they were
+    line_edges = [w / 2 - pitch, w / 2, w / 2 + pitch] if pitch else thirds(w / 2, 1, fine)
+    edges = line_edges + [c + e for c in centres for e in thirds(pad / 2, 1, fine)] + ([span / 2 + pad / 2] if span > w else [])
     ys_pos = [v for v in edges if v > 0 and all(abs(v - c) > r + step / 2 for c in centres)]
     ys = ys_pos + [-v for v in ys_pos] + [c + v for c in centres for v in via_lines]
     inner = min(res, w / fw.CELLS_ACROSS_WIDTH / REFINE, pad / 4)
@@ -448,7 +453,8 @@ def extract_via(p, work, reuse):
         'ratio_to_goldfarb_pucel_at_f0': round(float(inductance[k0] * 1e9 / gp), 4),
         'fdtd_line_z_ohm_at_f0': round(float(np.real(run['zl'][k0])), 4),
         'mesh': {'cells': [len(p['mesh'][a]) - 1 for a in 'xyz'], 'max_cell_mm': round(p['res'], 5),
-                 'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE},
+                 'edge_cell_mm': round(p['fine'], 5), 'refine': REFINE,
+                 **({'line_edge_pitch_mm': SETTINGS['edge_pitch_mm']} if SETTINGS['edge_pitch_mm'] else {})},
         'end_criteria': SETTINGS['end_criteria'],
         'run_seconds': round(run['seconds'], 1),
     }
@@ -647,8 +653,14 @@ def main():
     ap.add_argument('--end-criteria', type=float, default=JUNCTION_END_CRITERIA,
                     help='stop when the field energy has decayed to this fraction of its peak')
     ap.add_argument('--results', default=RESULTS, help='the JSON file the entries are written into')
+    ap.add_argument('--edge-pitch-um', type=float, default=0.0,
+                    help='via and via-row only: mesh the line\'s edges with lines this far apart (on the edge and '
+                         'one either side) instead of the thirds rule; needs --results other than junctions.json')
     args = ap.parse_args()
-    SETTINGS.update(end_criteria=args.end_criteria, results=os.path.abspath(args.results))
+    if args.edge_pitch_um and (args.kind not in ('via', 'via-row') or os.path.abspath(args.results) == os.path.abspath(RESULTS)):
+        raise SystemExit('--edge-pitch-um is for via and via-row cases, written to a --results file of their own')
+    SETTINGS.update(end_criteria=args.end_criteria, results=os.path.abspath(args.results),
+                    edge_pitch_mm=args.edge_pitch_um / 1000)
     table = {'cross': CROSSES, 'tee': TEES, 'open': OPEN_ENDS, 'via': VIAS, 'via-row': VIA_ROWS, 'bend': BENDS}[args.kind]
     cases = [c for c in table if not args.names or c[0] in args.names]
     if args.names and len(cases) != len(args.names):
