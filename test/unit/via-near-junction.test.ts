@@ -1,7 +1,8 @@
 // The via-near-junction warning fires only where the full-wave checks give no evidence: closer to
 // the junction than any via of a recorded full-wave design (scripts/fullwave/results.json, openEMS
 // FDTD runs of tunestrip's own artwork). Between that distance and 0.15 λ the recorded designs meet
-// the project issue's acceptance, so a warning there would be a false alarm.
+// the project issue's acceptance (all but one folded design with finely meshed edges, below), so a
+// warning there would be a false alarm.
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -18,6 +19,7 @@ interface Recorded {
   readonly name: string;
   readonly spec: string;
   readonly termination: string;
+  readonly copper_model: string;
   readonly offset_percent: number;
   readonly s11_db_at_f0: number;
 }
@@ -49,12 +51,21 @@ describe('via-near-junction warning', () => {
 
   // Single vias only: the one recorded row design this close, mixer-10g (two vias at 10 GHz, 0.137 λ),
   // lands +2.28 %, outside the acceptance and listed as such in fullwave-results.test.ts.
+  // Runs with the copper's edges meshed finely (copper model "… edge lines …", fifteenth to
+  // eighteenth rounds in scripts/fullwave/README.md) are held to the same bound, except one: the
+  // folded fw-1g5-fr4-short-fold-l (via 0.11 λ out) lands −2.19 % there (−1.46 % at the recorded
+  // setting). Straight short stubs with vias nearer (fw-1g9-fr4-short, 0.07 λ) meet it with fine
+  // edges, so the miss is not read as the via's distance; it is listed in fullwave-results.test.ts.
+  const FINE_EDGE_MISSES = new Set(['fw-1g5-fr4-short-fold-l']);
   it('every recorded single-via short-stub design within 0.15 λ meets the acceptance (±2 %, ≤ −15 dB)', () => {
     const near = distances.filter((d) => d.wl < 0.15 && d.vias === 1);
     expect(near.length).toBeGreaterThanOrEqual(5);
-    for (const d of near) {
-      expect(Math.abs(d.offset_percent), d.name).toBeLessThanOrEqual(2);
-      expect(d.s11_db_at_f0, d.name).toBeLessThanOrEqual(-15);
+    const listed = near.filter((d) => d.copper_model.includes('edge lines') && FINE_EDGE_MISSES.has(d.name));
+    expect(listed.map((d) => d.name)).toEqual([...FINE_EDGE_MISSES]);
+    for (const d of listed) expect(Math.abs(d.offset_percent), d.name).toBeGreaterThan(2);
+    for (const d of near.filter((r) => !listed.includes(r))) {
+      expect(Math.abs(d.offset_percent), `${d.name}, ${d.copper_model}`).toBeLessThanOrEqual(2);
+      expect(d.s11_db_at_f0, `${d.name}, ${d.copper_model}`).toBeLessThanOrEqual(-15);
     }
   });
 
