@@ -37,7 +37,7 @@ for name in fw-1g6-fr4-complex-target fw-1g8-complex-target fw-2g0-fr4-open-stub
     fw-3g6-er3-complex-target fw-4g0-ptfe-short fw-5g5-ptfe-balanced fw-5g8-hc-open fw-8g0-er10-open \
     fw-2g4-hc-short-fold-l fw-3g5-er348-complex-target fw-5g2-er615-short40 receiver-5g8 \
     fw-3g5-short-stub30 fw-2g45-fr4-1000-short fw-1g5-fr4-08-short fw-10g-short-thin fw-1g9-fr4-short \
-    fw-4g5-er10-short30-best fw-1g5-fr4-short-fold-l; do
+    fw-4g5-er10-short30-best fw-1g5-fr4-short-fold-l fw-2g4-fr4-short-2via; do
   simulate "$name" --wall-cells 1
 done
 for name in fw-1g8-complex-target fw-8g0-er10-open; do simulate "$name" --thick --wall-cells 1; done
