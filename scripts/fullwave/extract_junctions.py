@@ -377,15 +377,15 @@ def plan_via(case):
     margin = max(10 * h, 3 * w, 8.0)
     air = max(12 * h, 8.0)
     step = r / via_cells
-    pitch = SETTINGS['edge_pitch_mm']
-    tol = min(fine / 4, step / 2, pitch / 4 if pitch else math.inf)
+    edge_pitch = SETTINGS['edge_pitch_mm']   # not `pitch`: that is the row's via pitch
+    tol = min(fine / 4, step / 2, edge_pitch / 4 if edge_pitch else math.inf)
     via_lines = list(step * np.arange(-via_cells, via_cells + 1))
     centres = [(k - (count - 1) / 2) * pitch for k in range(count)]   # across the line, as tunestrip draws a row
     span = (count - 1) * pitch
     xs = [v for v in thirds(pad / 2, 1, fine) if v > r + step / 2] + via_lines + [x_far]
     # the line's edges as simulate.py --wall-cells 1 meshes them (a line on the edge and one either
-    # side, `pitch` apart) when --edge-pitch-um is given; the pads' lines stay as they were
-    line_edges = [w / 2 - pitch, w / 2, w / 2 + pitch] if pitch else thirds(w / 2, 1, fine)
+    # side, `edge_pitch` apart) when --edge-pitch-um is given; the pads' lines stay as they were
+    line_edges = [w / 2 - edge_pitch, w / 2, w / 2 + edge_pitch] if edge_pitch else thirds(w / 2, 1, fine)
     edges = line_edges + [c + e for c in centres for e in thirds(pad / 2, 1, fine)] + ([span / 2 + pad / 2] if span > w else [])
     ys_pos = [v for v in edges if v > 0 and all(abs(v - c) > r + step / 2 for c in centres)]
     ys = ys_pos + [-v for v in ys_pos] + [c + v for c in centres for v in via_lines]
